@@ -1,0 +1,10 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  // A separate build folder lets the browser tests build without touching a running demo.
+  distDir: process.env.NEXT_DIST_DIR || ".next",
+  serverExternalPackages: ["better-sqlite3", "s3rver", "smtp-server", "mailparser", "@node-rs/argon2"],
+  poweredByHeader: false,
+  reactStrictMode: true,
+};
+
+export default nextConfig;
