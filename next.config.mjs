@@ -5,6 +5,7 @@ const nextConfig = {
   serverExternalPackages: ["better-sqlite3", "s3rver", "smtp-server", "mailparser", "@node-rs/argon2"],
   poweredByHeader: false,
   reactStrictMode: true,
+  experimental: { authInterrupts: true },
 };
 
 export default nextConfig;

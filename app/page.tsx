@@ -1,0 +1,93 @@
+import Link from "next/link";
+import { AdminSection, ClassCards } from "@/components/home/home-sections";
+import { buttonClasses } from "@/components/ui/button";
+import { Card, CardTitle } from "@/components/ui/card";
+import { EmptyState } from "@/components/ui/empty-state";
+import { LogoMark } from "@/components/ui/logo";
+import { PageHeader } from "@/components/ui/page-header";
+import { listClasses } from "@/db/queries/classes";
+import { listChildren } from "@/db/queries/family";
+import { adminOverview } from "@/db/queries/home";
+import { hasRole } from "@/lib/auth/actor";
+import { currentActor } from "@/lib/auth/guards";
+
+function Landing() {
+  return (
+    <div className="mx-auto flex max-w-3xl flex-col items-start gap-6 py-6">
+      <LogoMark size={64} />
+      <h1 className="text-3xl font-bold sm:text-4xl">Practical science, recorded and checked.</h1>
+      <p className="text-lg text-muted">
+        Meniscus is the lab notebook and marking bench for a school science department. Students record their results, graphs and calculations; every calculation is
+        checked against the student&apos;s own data; teachers mark against their rubric; moderators check the marking; families see clear progress reports.
+      </p>
+      <Link href="/sign-in" className={buttonClasses("primary")}>
+        Sign in
+      </Link>
+    </div>
+  );
+}
+
+export default async function HomePage() {
+  const actor = await currentActor();
+  if (!actor) return <Landing />;
+  const firstName = actor.name.split(" ")[0];
+  const classes = hasRole(actor, "teacher", "student") ? listClasses({ actor }) : [];
+  const children = hasRole(actor, "parent") ? listChildren({ actor }) : null;
+  return (
+    <div className="flex flex-col gap-8">
+      <PageHeader title={`Hello, ${firstName}`} lead="Here is what needs doing next." />
+      {hasRole(actor, "admin") ? <AdminSection overview={adminOverview(actor)} /> : null}
+      {hasRole(actor, "teacher") ? (
+        <section aria-labelledby="teaching-heading" className="flex flex-col gap-3">
+          <h2 id="teaching-heading" className="text-xl font-bold">
+            Your classes
+          </h2>
+          <ClassCards classes={classes.filter((c) => c.teachers.some((t) => t.id === actor.userId))} teacherView emptyText="You are not teaching any classes yet. Ask your school's admin to add you to one." />
+        </section>
+      ) : null}
+      {hasRole(actor, "student") ? (
+        <section aria-labelledby="student-heading" className="flex flex-col gap-3">
+          <h2 id="student-heading" className="text-xl font-bold">
+            Your science classes
+          </h2>
+          <ClassCards classes={classes.filter((c) => !c.teachers.some((t) => t.id === actor.userId))} teacherView={false} emptyText="You are not in any classes yet." />
+        </section>
+      ) : null}
+      {hasRole(actor, "moderator") ? (
+        <section aria-labelledby="moderation-heading">
+          <Card>
+            <CardTitle>Moderation</CardTitle>
+            <p className="text-muted">When a moderation sample is drawn for you to second-mark, it appears here with the work to look at.</p>
+          </Card>
+        </section>
+      ) : null}
+      {children ? <ParentSection items={children} /> : null}
+    </div>
+  );
+
+}
+
+function ParentSection({ items }: { items: ReturnType<typeof listChildren> }) {
+  return (
+    <section aria-labelledby="family-heading" className="flex flex-col gap-3">
+      <h2 id="family-heading" className="text-xl font-bold">
+        Your children
+      </h2>
+      {items.length ? (
+        <ul className="grid gap-3 sm:grid-cols-2">
+          {items.map((c) => (
+            <li key={c.id}>
+              <Card>
+                <CardTitle as="h3">{c.name}</CardTitle>
+                {c.yearGroup ? <p className="text-muted">Year {c.yearGroup}</p> : null}
+                <p>{c.classes.length ? `Science classes: ${c.classes.map((k) => k.name).join(", ")}` : "Not in a science class yet."}</p>
+              </Card>
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <EmptyState title="No children are linked to your account yet.">Ask the school office to link your account to your child.</EmptyState>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,59 @@
+import "server-only";
+import fs from "node:fs";
+import path from "node:path";
+import Database from "better-sqlite3";
+import { drizzle, type BetterSQLite3Database } from "drizzle-orm/better-sqlite3";
+import { migrate } from "drizzle-orm/better-sqlite3/migrator";
+import * as schema from "./schema";
+
+export type Db = BetterSQLite3Database<typeof schema>;
+/** A transaction handle; queries accept either. */
+export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+export type DbOrTx = Db | Tx;
+
+type Handle = { db: Db; sqlite: Database.Database; file: string };
+
+const globalForDb = globalThis as unknown as { __meniscusDb?: Handle };
+
+/** The database file: DATABASE_PATH, or data/meniscus.db inside the project. */
+export function databasePath(): string {
+  const fromEnv = process.env.DATABASE_PATH;
+  return fromEnv ? fromEnv : path.join(process.cwd(), "data", "meniscus.db");
+}
+
+export function migrationsFolder(): string {
+  return path.join(process.cwd(), "db", "migrations");
+}
+
+/**
+ * Opens a database file (or ":memory:"), sets the pragmas Meniscus relies on and applies any
+ * pending migrations. Never called at import time: `next build` must not need a database.
+ */
+export function openDatabase(file: string): Handle {
+  if (file !== ":memory:") fs.mkdirSync(path.dirname(file), { recursive: true });
+  const sqlite = new Database(file);
+  sqlite.pragma("journal_mode = WAL");
+  sqlite.pragma("foreign_keys = ON");
+  sqlite.pragma("busy_timeout = 5000");
+  // WAL with synchronous=NORMAL is durable against application crashes (the case we test by
+  // killing the server); FULL also survives power loss on the machine, at a cost per commit.
+  sqlite.pragma(`synchronous = ${process.env.DATABASE_SYNCHRONOUS === "FULL" ? "FULL" : "NORMAL"}`);
+  const db = drizzle(sqlite, { schema });
+  migrate(db, { migrationsFolder: migrationsFolder() });
+  return { db, sqlite, file };
+}
+
+/** The one shared connection for this process. */
+export function getDb(): Db {
+  return getHandle().db;
+}
+
+export function getHandle(): Handle {
+  if (!globalForDb.__meniscusDb) globalForDb.__meniscusDb = openDatabase(databasePath());
+  return globalForDb.__meniscusDb;
+}
+
+/** Tests: point the process at another database (for example an in-memory one). */
+export function setDatabase(handle: Handle | undefined): void {
+  globalForDb.__meniscusDb = handle;
+}

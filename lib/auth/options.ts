@@ -1,0 +1,80 @@
+import "server-only";
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { findUserForSignIn, loadActor, recordSignIn } from "@/db/queries/users";
+import { signInSchema } from "@/lib/validation/users";
+import { dummyHash, verifyPassword } from "./password";
+import { assertSignInAllowed, clearSignInFailures, recordFailedSignIn } from "./rate-limit";
+import { authSecret } from "./secret";
+
+/** Error codes the sign-in page turns into messages. */
+export const SIGN_IN_ERRORS = {
+  invalid: "CredentialsSignin",
+  rateLimited: "RateLimited",
+} as const;
+
+function clientIp(headers: Record<string, unknown> | undefined): string {
+  const fwd = headers?.["x-forwarded-for"];
+  const first = typeof fwd === "string" ? fwd.split(",")[0]!.trim() : "";
+  return first || String(headers?.["x-real-ip"] ?? "local");
+}
+
+let options: NextAuthOptions | undefined;
+
+export function authOptions(): NextAuthOptions {
+  if (options) return options;
+  options = {
+    secret: authSecret(),
+    session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+    pages: { signIn: "/sign-in", error: "/sign-in" },
+    providers: [
+      CredentialsProvider({
+        name: "E-mail and password",
+        credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+        async authorize(credentials, req) {
+          const parsed = signInSchema.safeParse(credentials);
+          if (!parsed.success) return null;
+          const { email, password } = parsed.data;
+          const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
+          try {
+            await assertSignInAllowed(email, ip);
+          } catch {
+            throw new Error(SIGN_IN_ERRORS.rateLimited);
+          }
+          const user = findUserForSignIn(email);
+          const ok = user ? await verifyPassword(user.passwordHash, password) : (await verifyPassword(await dummyHash(), password), false);
+          if (!user || !ok || !user.active) {
+            await recordFailedSignIn(email, ip);
+            return null;
+          }
+          await clearSignInFailures(email);
+          recordSignIn(user.id);
+          return { id: user.id, name: user.name, email: user.email };
+        },
+      }),
+    ],
+    callbacks: {
+      async jwt({ token, user }) {
+        if (user) token.sub = user.id;
+        if (token.sub) {
+          const actor = loadActor(token.sub);
+          if (actor) {
+            token.roles = [...actor.roles];
+            token.schoolId = actor.schoolId;
+            token.name = actor.name;
+          }
+        }
+        return token;
+      },
+      async session({ session, token }) {
+        if (session.user && token.sub) {
+          session.user.id = token.sub;
+          session.user.roles = (token.roles as string[] | undefined) ?? [];
+          session.user.schoolId = (token.schoolId as string | undefined) ?? "";
+        }
+        return session;
+      },
+    },
+  };
+  return options;
+}
