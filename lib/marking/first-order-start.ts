@@ -1,0 +1,118 @@
+import { householderLeastSquares } from "./internal/householder-least-squares";
+import { MarkingInputError } from "./marking-input-error";
+import { countDistinct, requireFiniteSeries, requireSameLength } from "./internal/validate";
+
+/** The two first-order curve shapes. */
+export type FirstOrderKind = "rise" | "decay";
+
+/** Starting values for a first-order fit. */
+export interface FirstOrderStart {
+  readonly a: number;
+  readonly k: number;
+  readonly c: number;
+}
+
+/** exp(-k t) basis value for the chosen shape. */
+function shape(kind: FirstOrderKind, k: number, t: number): number {
+  return kind === "rise" ? 1 - Math.exp(-k * t) : Math.exp(-k * t);
+}
+
+/**
+ * For a fixed rate constant k the model is linear in a and c, so the best a and c follow from a
+ * small least-squares solve (variable projection). Returns the residual sum of squares, a and c.
+ */
+export function bestAmplitudeForRate(
+  kind: FirstOrderKind,
+  offset: boolean,
+  t: readonly number[],
+  y: readonly number[],
+  k: number,
+): { a: number; c: number; residualSumOfSquares: number } | null {
+  const rows = t.map((time) => (offset ? [shape(kind, k, time), 1] : [shape(kind, k, time)]));
+  const solved = householderLeastSquares(rows, y);
+  if (solved === null) return null;
+  return {
+    a: solved.solution[0],
+    c: offset ? solved.solution[1] : 0,
+    residualSumOfSquares: solved.residualNorm * solved.residualNorm,
+  };
+}
+
+/**
+ * A starting guess for a first-order rise y = a(1 - e^(-kt)) + c or decay y = a e^(-kt) + c,
+ * taken from the data alone.
+ *
+ * Method: a first k from the time taken to cover half of the observed change (k = ln 2 / t_half);
+ * then, because a and c enter the model linearly, a scan of k over a wide logarithmic grid
+ * (k times the time span from 0.01 to 200) solving for the best a and c at each k, keeping the k
+ * with the smallest residual sum of squares. The result is a start, not the fit.
+ *
+ * @param t - times (any time unit), at least 3 different values
+ * @param y - readings (any unit), same length as t
+ * @param kind - "rise" or "decay"
+ * @param offset - true to allow a constant c (default true); false fixes c = 0
+ * @returns { a, k, c } with k in reciprocal time units
+ * @throws {MarkingInputError} `not-a-number`, `length-mismatch`, `too-few-points`, `repeated-x`
+ * @example
+ * firstOrderStart([0, 1, 2, 3, 4], [0, 6.32, 8.65, 9.50, 9.82], "rise", true);
+ * // => roughly { a: 10, k: 1, c: 0 }
+ */
+export function firstOrderStart(
+  t: readonly number[],
+  y: readonly number[],
+  kind: FirstOrderKind,
+  offset = true,
+): FirstOrderStart {
+  const functionName = "firstOrderStart";
+  requireFiniteSeries(t, "time", functionName);
+  requireFiniteSeries(y, "reading", functionName);
+  requireSameLength(t, y, "time", "reading", functionName);
+  const needed = offset ? 3 : 2;
+  if (t.length < needed + 1) {
+    throw new MarkingInputError(
+      "too-few-points",
+      functionName,
+      `A first-order curve needs at least ${needed + 1} readings to fit and judge; only ${t.length} ${t.length === 1 ? "was" : "were"} given.`,
+    );
+  }
+  if (countDistinct(t) < needed + 1) {
+    throw new MarkingInputError("repeated-x", functionName, `A first-order curve needs readings at ${needed + 1} or more different times.`);
+  }
+  const order = t.map((_, i) => i).sort((i, j) => t[i] - t[j]);
+  const times = order.map((i) => t[i]);
+  const values = order.map((i) => y[i]);
+  const first = times[0];
+  const span = times[times.length - 1] - first;
+  const startValue = values[0];
+  const endValue = values[values.length - 1];
+  const halfway = (startValue + endValue) / 2;
+  let halfTime = span / 2;
+  for (let i = 1; i < values.length; i += 1) {
+    const before = values[i - 1] - halfway;
+    const after = values[i] - halfway;
+    if (before === 0 || before * after < 0 || after === 0) {
+      const fraction = before === after ? 0 : before / (before - after);
+      halfTime = times[i - 1] + fraction * (times[i] - times[i - 1]) - first;
+      break;
+    }
+  }
+  const firstGuess = Math.LN2 / Math.max(halfTime, span * 1e-3);
+  let best: { k: number; a: number; c: number; residualSumOfSquares: number } | null = null;
+  const consider = (k: number): void => {
+    const candidate = bestAmplitudeForRate(kind, offset, t, y, k);
+    if (candidate && (best === null || candidate.residualSumOfSquares < best.residualSumOfSquares)) {
+      best = { k, ...candidate };
+    }
+  };
+  consider(firstGuess);
+  const steps = 48;
+  for (let s = 0; s <= steps; s += 1) {
+    const kTimesSpan = 0.01 * (200 / 0.01) ** (s / steps);
+    consider(kTimesSpan / span);
+  }
+  if (best === null) {
+    throw new MarkingInputError("not-converged", functionName, "No first-order curve could be started from these readings.");
+  }
+  const chosen: { k: number; a: number; c: number } = best;
+  return { a: chosen.a, k: chosen.k, c: chosen.c };
+}
