@@ -1,7 +1,9 @@
 import { beforeEach, describe, expect, it } from "vitest";
-import { createUser, listUsers, loadActor, updateUser } from "@/db/queries/users";
+import { createUser, findUserForSignIn, getOwnAccount, getUserDetail, listPeopleWithRole, listUsers, loadActor, updateUser } from "@/db/queries/users";
 import { AppError } from "@/lib/errors";
 import { auditEntries, freshDatabase, makeSchool, makeUser } from "../helpers/db";
+import { expectRefused } from "../helpers/errors";
+import { twoSchools, type TwoSchools } from "../helpers/schools";
 
 describe("people (data-access layer)", () => {
   let schoolId: string;
@@ -64,5 +66,51 @@ describe("people (data-access layer)", () => {
     const admin = makeUser(schoolId, ["admin"]);
     expect(() => updateUser({ actor: admin, userId: admin.userId, input: { active: false } })).toThrowError(/own account/);
     expect(() => updateUser({ actor: admin, userId: admin.userId, input: { roles: ["teacher"] } })).toThrowError(/own admin role/);
+  });
+});
+
+describe("people: every role, and the other school", () => {
+  let s: TwoSchools;
+  beforeEach(() => {
+    freshDatabase();
+    s = twoSchools();
+  });
+
+  it("lets only an admin read, list or change people", () => {
+    for (const actor of [s.teacher, s.student, s.moderator, s.parent]) {
+      expectRefused(() => getUserDetail({ actor, userId: s.student.userId }), "forbidden");
+      expectRefused(() => listPeopleWithRole({ actor, role: "student" }), "forbidden");
+      expectRefused(() => updateUser({ actor, userId: actor.userId, input: { roles: ["admin"] } }), "forbidden");
+      expectRefused(() => updateUser({ actor, userId: s.student.userId, input: { name: "Changed" } }), "forbidden");
+    }
+    expect(loadActor(s.teacher.userId)?.roles).toEqual(["teacher"]);
+    expect(getUserDetail({ actor: s.admin, userId: s.student.userId }).name).toBe("Sasha Student");
+  });
+
+  it("shows an admin a person's classes and family, but not another school's person", () => {
+    const detail = getUserDetail({ actor: s.admin, userId: s.student.userId });
+    expect(detail.studiesIn.map((c) => c.name)).toEqual(["9X Chemistry"]);
+    expect(detail.guardians.map((g) => g.name)).toEqual(["Pippa Parent"]);
+    expect(getUserDetail({ actor: s.admin, userId: s.parent.userId }).children.map((c) => c.name)).toEqual(["Sasha Student"]);
+    expectRefused(() => getUserDetail({ actor: s.elsewhere.admin, userId: s.student.userId }), "not_found");
+  });
+
+  it("lists people for pickers from the admin's own school only", () => {
+    expect(listPeopleWithRole({ actor: s.admin, role: "student" }).map((p) => p.name)).toEqual(["Sasha Student", "Soren Student"]);
+    expect(listPeopleWithRole({ actor: s.elsewhere.admin, role: "student" }).map((p) => p.name)).toEqual(["Silas Student"]);
+  });
+
+  it("lets everyone read their own account, and only their own", () => {
+    for (const actor of [s.admin, s.teacher, s.student, s.moderator, s.parent]) {
+      const own = getOwnAccount(actor);
+      expect(own.email).toBe(actor.email);
+      expect(own.roles).toEqual(actor.roles);
+    }
+  });
+
+  it("treats a deactivated account as signed out, and finds it for sign-in whatever the e-mail's case", () => {
+    const quiet = makeUser(s.schoolId, ["teacher"], { active: false });
+    expect(loadActor(quiet.userId)).toBeNull();
+    expect(findUserForSignIn(quiet.email.toUpperCase())?.active).toBe(false);
   });
 });

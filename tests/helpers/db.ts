@@ -26,14 +26,18 @@ function currentHandle() {
 }
 
 /** Inserts a person holding the roles and returns them as an Actor. */
-export function makeUser(schoolId: string, roles: Role[], over: { name?: string; email?: string; passwordHash?: string | null; yearGroup?: number } = {}): Actor {
+export function makeUser(
+  schoolId: string,
+  roles: Role[],
+  over: { name?: string; email?: string; passwordHash?: string | null; yearGroup?: number; active?: boolean } = {},
+): Actor {
   const { db } = currentHandle();
   const n = ++counter;
   const name = over.name ?? `Person ${n}`;
   const email = over.email ?? `person${n}@test.example`;
   const id = db
     .insert(schema.users)
-    .values({ schoolId, name, email, passwordHash: over.passwordHash ?? null, yearGroup: over.yearGroup ?? (roles.includes("student") ? 10 : null) })
+    .values({ schoolId, name, email, passwordHash: over.passwordHash ?? null, yearGroup: over.yearGroup ?? (roles.includes("student") ? 10 : null), active: over.active ?? true })
     .returning({ id: schema.users.id })
     .get().id;
   db.insert(schema.userRoles).values(roles.map((role) => ({ userId: id, role }))).run();
@@ -61,6 +65,12 @@ export function auditEntries(entityId?: string) {
   const { db } = currentHandle();
   const q = db.select().from(schema.auditLog);
   return (entityId ? q.where(eq(schema.auditLog.entityId, entityId)) : q).all();
+}
+
+/** Number of rows in a table of the current test database. */
+export function countRows(table: string): number {
+  if (!/^[a-z_]+$/.test(table)) throw new Error(`not a table name: ${table}`);
+  return (currentHandle().sqlite.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n;
 }
 
 export function testDb() {
