@@ -1,10 +1,10 @@
 import "server-only";
-import { and, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import type { Actor } from "@/lib/auth/actor";
 import { hasRole } from "@/lib/auth/actor";
 import { forbidden } from "@/lib/errors";
 import { getDb, type DbOrTx } from "../client";
-import { auditLog, users } from "../schema";
+import { auditLog, classes, users } from "../schema";
 
 export type AuditInput = {
   schoolId: string;
@@ -56,4 +56,36 @@ export function listAudit({
     .orderBy(desc(auditLog.id))
     .limit(Math.min(Math.max(limit, 1), 1000))
     .all();
+}
+
+/** The kinds of record that appear in the school's audit trail, for its filter (admins only). */
+export function listAuditEntityTypes({ actor }: { actor: Actor }): string[] {
+  if (!hasRole(actor, "admin")) throw forbidden("Only an admin can read the audit trail.");
+  return getDb()
+    .selectDistinct({ entityType: auditLog.entityType })
+    .from(auditLog)
+    .where(eq(auditLog.schoolId, actor.schoolId))
+    .orderBy(asc(auditLog.entityType))
+    .all()
+    .map((r) => r.entityType);
+}
+
+/**
+ * Display names for ids that audit entries mention (people and classes of the actor's school), so
+ * the trail can say "Added Ellis Marchetti to 10C Chemistry" instead of showing ids. Ids from
+ * elsewhere, or of deleted records, are left out.
+ */
+export function auditNames({ actor, ids }: { actor: Actor; ids: readonly string[] }): Record<string, string> {
+  if (!hasRole(actor, "admin")) throw forbidden("Only an admin can read the audit trail.");
+  const wanted = [...new Set(ids)].filter((id) => typeof id === "string" && id.length > 0 && id.length <= 64);
+  const out: Record<string, string> = {};
+  if (!wanted.length) return out;
+  const db = getDb();
+  // SQLite limits the number of bound parameters, so look the ids up in slices.
+  for (let i = 0; i < wanted.length; i += 500) {
+    const slice = wanted.slice(i, i + 500);
+    for (const r of db.select({ id: users.id, name: users.name }).from(users).where(and(eq(users.schoolId, actor.schoolId), inArray(users.id, slice))).all()) out[r.id] = r.name;
+    for (const r of db.select({ id: classes.id, name: classes.name }).from(classes).where(and(eq(classes.schoolId, actor.schoolId), inArray(classes.id, slice))).all()) out[r.id] = r.name;
+  }
+  return out;
 }

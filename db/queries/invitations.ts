@@ -188,3 +188,34 @@ export async function requestPasswordReset({ email, now = new Date() }: { email:
     }),
   });
 }
+
+export type InvitationAttempt = { userId: string; ok: true; expiresAt: Date } | { userId: string; ok: false; message: string };
+
+/**
+ * Sends invitations to several people, a few at a time, and reports each outcome instead of
+ * stopping at the first failure: used after a roster import or when adding a person, where the
+ * people are already saved and a mail problem must not undo that. Links are never returned.
+ */
+export async function sendInvitationsTo({ actor, userIds, concurrency = 4 }: { actor: Actor; userIds: readonly string[]; concurrency?: number }): Promise<InvitationAttempt[]> {
+  if (!hasRole(actor, "admin")) throw forbidden("Only an admin can send invitations.");
+  const results: InvitationAttempt[] = new Array(userIds.length);
+  let next = 0;
+  const worker = async () => {
+    while (next < userIds.length) {
+      const i = next++;
+      const userId = userIds[i]!;
+      try {
+        const { expiresAt } = await sendInvitation({ actor, userId });
+        results[i] = { userId, ok: true, expiresAt };
+      } catch (e) {
+        if (e instanceof AppError) results[i] = { userId, ok: false, message: e.message };
+        else {
+          console.error("[meniscus] invitation e-mail failed", e);
+          results[i] = { userId, ok: false, message: "The e-mail could not be sent just now. Send the invitation again from the person's page." };
+        }
+      }
+    }
+  };
+  await Promise.all(Array.from({ length: Math.max(1, Math.min(concurrency, userIds.length)) }, worker));
+  return results;
+}

@@ -305,3 +305,18 @@ export function listPeopleWithRole({ actor, role }: { actor: Actor; role: Role }
     .all();
 }
 
+
+/** Names, e-mails and roles of some people in the actor's school (admins only); others are left out. */
+export function describePeople({ actor, userIds }: { actor: Actor; userIds: readonly string[] }): { id: string; name: string; email: string; roles: Role[] }[] {
+  requireAdmin(actor);
+  if (userIds.length === 0) return [];
+  const db = getDb();
+  const rows = db
+    .select({ id: users.id, name: users.name, email: users.email })
+    .from(users)
+    .where(and(eq(users.schoolId, actor.schoolId), inArray(users.id, [...new Set(userIds)])))
+    .orderBy(asc(users.name))
+    .all();
+  const roles = rolesByUser(db, rows.map((r) => r.id));
+  return rows.map((r) => ({ ...r, roles: roles.get(r.id) ?? [] }));
+}

@@ -47,3 +47,26 @@ export const rosterImportSchema = z.object({
   commit: z.boolean().default(false),
   sendInvitations: z.boolean().default(true),
 });
+
+/**
+ * A class change from the admin screens. Unlike `classUpdateSchema`, leaving out `teacherIds`
+ * leaves the teachers as they are (the base schema's default of [] would remove them all).
+ */
+export const classPatchSchema = classBaseSchema
+  .omit({ teacherIds: true })
+  .partial()
+  .extend({
+    teacherIds: z.array(idSchema).max(10, "A class can have at most 10 teachers.").optional(),
+    archived: z.boolean().optional(),
+  });
+export type ClassPatchInput = z.infer<typeof classPatchSchema>;
+
+export const familyUnlinkSchema = parentLinkSchema.pick({ parentId: true, studentId: true });
+
+/** Largest roster file accepted, in characters; anything bigger is refused as too large (413). */
+export const ROSTER_MAX_CSV_CHARS = 512_000;
+
+/** The roster request as sent over HTTP; the route checks the size so it can answer 413. */
+export const rosterRequestSchema = rosterImportSchema.extend({
+  csv: z.string({ error: "Send the roster as text in the csv field." }).min(1, "The file is empty."),
+});

@@ -44,3 +44,26 @@ export const changePasswordSchema = z
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords do not match." });
 
 export const preferencesSchema = z.object({ emailNotifications: z.boolean() });
+
+/** How far a person has got with their account, as the people list filters it. */
+export const PERSON_STATUSES = ["active", "invited", "not-invited", "not-set-up", "deactivated"] as const;
+export type PersonStatus = (typeof PERSON_STATUSES)[number];
+
+const blankToUndefined = (v: unknown) => (v === "" || v == null ? undefined : v);
+
+/** Query string of the people list: ?role=student&status=not-set-up&q=ellis */
+export const peopleQuerySchema = z.object({
+  role: z.preprocess(blankToUndefined, roleSchema.optional()),
+  status: z.preprocess(
+    blankToUndefined,
+    z.enum(PERSON_STATUSES, { error: `Status must be one of: ${PERSON_STATUSES.join(", ")}.` }).optional(),
+  ),
+  q: z.preprocess(blankToUndefined, z.string().trim().max(100, "Search for at most 100 characters.").optional()),
+});
+
+/** Query string of the people picker: one role, an optional search term. */
+export const pickerQuerySchema = z.object({
+  role: roleSchema,
+  q: z.preprocess(blankToUndefined, z.string().trim().max(100, "Search for at most 100 characters.").optional()),
+  limit: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(500).default(25)),
+});
