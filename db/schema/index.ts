@@ -5,3 +5,4 @@ export * from "./classes";
 export * from "./invitations";
 export * from "./audit-log";
 export * from "./mail-messages";
+export * from "./practicals";
