@@ -6,6 +6,10 @@ export type NavLink = { href: string; label: string; roles: Role[] };
 export const NAV_LINKS: NavLink[] = [
   { href: "/", label: "Home", roles: ["admin", "teacher", "student", "moderator", "parent"] },
   { href: "/classes", label: "Classes", roles: ["teacher", "student"] },
+  { href: "/practicals", label: "Practicals", roles: ["teacher", "admin", "moderator"] },
+  { href: "/lab-sessions", label: "Lab sessions", roles: ["teacher", "student", "admin"] },
+  { href: "/rubrics", label: "Rubrics", roles: ["teacher"] },
+  { href: "/tools", label: "Calculators", roles: ["teacher"] },
   { href: "/admin/people", label: "People", roles: ["admin"] },
   { href: "/admin/classes", label: "All classes", roles: ["admin"] },
   { href: "/admin/outbox", label: "Outbox", roles: ["admin"] },
