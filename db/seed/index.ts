@@ -1,11 +1,12 @@
 import { eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import type { Db } from "../client";
-import { auditLog, classes, classStudents, classTeachers, invitations, parentLinks, schools, userRoles, users } from "../schema";
+import { auditLog, classes, classStudents, classTeachers, invitations, labSessions, parentLinks, practicals, practicalVersions, rubrics, schools, userRoles, users } from "../schema";
+import { DEMO_PRACTICALS } from "./practicals";
 import { hashToken, newToken } from "@/lib/tokens";
 import { ACADEMIC_YEAR, CLASSES, DEMO_DOMAIN, DEMO_PASSWORD, DEMO_SCHOOL, PARENTS, STAFF, demoStudents, type DemoPerson } from "./people";
 
-export type SeedResult = { schoolId: string; userIds: Map<string, string>; classIds: Map<string, string> };
+export type SeedResult = { schoolId: string; userIds: Map<string, string>; classIds: Map<string, string>; practicalVersionIds: Map<string, string>; labSessionIds: Map<string, string> };
 
 /** True when the database already holds a school (the demo is seeded once, on first start). */
 export function hasAnySchool(db: Db): boolean {
@@ -70,8 +71,63 @@ export async function seedDemoSchool(db: Db, { now = new Date() }: { now?: Date 
       for (const child of children) tx.insert(parentLinks).values({ parentId: id, studentId: userIds.get(child)!, relationship }).run();
     }
 
+    // The department library: every demo practical published as version 1; one has a draft v2.
+    const practicalVersionIds = new Map<string, string>();
+    const practicalIds = new Map<string, string>();
+    const day = 86_400_000;
+    DEMO_PRACTICALS.forEach((dp, i) => {
+      const author = userIds.get(dp.subject === "Physics" ? "physics" : i % 2 ? "hod" : "teacher")!;
+      const created = new Date(now.getTime() - (40 - i) * day);
+      const practicalId = tx
+        .insert(practicals)
+        .values({ schoolId, title: dp.title, topic: dp.topic, subject: dp.subject, yearGroup: dp.yearGroup, createdById: author, createdAt: created, updatedAt: created })
+        .returning({ id: practicals.id })
+        .get().id;
+      const versionId = tx
+        .insert(practicalVersions)
+        .values({ practicalId, schoolId, version: 1, status: "published", title: dp.title, topic: dp.topic, subject: dp.subject, yearGroup: dp.yearGroup, content: dp.content, revision: 3, createdById: author, publishedAt: created, publishedById: author, createdAt: created, updatedAt: created })
+        .returning({ id: practicalVersions.id })
+        .get().id;
+      practicalIds.set(dp.key, practicalId);
+      practicalVersionIds.set(dp.key, versionId);
+      if (dp.key === "chips") {
+        tx.insert(practicalVersions)
+          .values({ practicalId, schoolId, version: 2, status: "draft", title: dp.title, topic: dp.topic, subject: dp.subject, yearGroup: dp.yearGroup, content: { ...dp.content, aim: `${dp.content.aim} Extension: try a third size of chip.` }, revision: 1, createdById: author })
+          .run();
+      }
+    });
+    const rubricSource = DEMO_PRACTICALS[0]!.content.rubric!;
+    tx.insert(rubrics).values({ schoolId, title: rubricSource.title, body: { title: rubricSource.title, style: rubricSource.style, criteria: rubricSource.criteria }, createdById: userIds.get("hod")! }).run();
+
+    const labSessionIds = new Map<string, string>();
+    const schedule = (key: string, practical: string, classKey: string, teacherKey: string, opensInDays: number, lengthDays: number) => {
+      const opensAt = new Date(now.getTime() + opensInDays * day);
+      const id = tx
+        .insert(labSessions)
+        .values({
+          schoolId,
+          classId: classIds.get(classKey)!,
+          practicalId: practicalIds.get(practical)!,
+          practicalVersionId: practicalVersionIds.get(practical)!,
+          opensAt,
+          dueAt: new Date(opensAt.getTime() + lengthDays * day),
+          lateWork: "accept-flagged",
+          lateDays: 7,
+          notes: "Bring your lab book and wear your own goggles if you have them.",
+          createdById: userIds.get(teacherKey)!,
+        })
+        .returning({ id: labSessions.id })
+        .get().id;
+      labSessionIds.set(key, id);
+    };
+    schedule("10C-mg", "mg-acid", "10C", "teacher", -3, 7);
+    schedule("10D-mg", "mg-acid", "10D", "hod", -20, 7);
+    schedule("12A-thio", "thiosulfate", "12A", "hod", -2, 7);
+    schedule("10C-peroxide", "peroxide", "10C", "teacher", 5, 7);
+    schedule("11P-resistance", "resistance", "11P", "physics", -1, 7);
+
     tx.insert(auditLog).values({ schoolId, actorId: null, action: "school.seed", entityType: "school", entityId: schoolId, after: { people: userIds.size, classes: classIds.size, domain: DEMO_DOMAIN }, at: now }).run();
-    return { schoolId, userIds, classIds };
+    return { schoolId, userIds, classIds, practicalVersionIds, labSessionIds };
   });
 }
 

@@ -1,0 +1,25 @@
+import { describe, expect, it } from "vitest";
+import { listLabSessions } from "@/db/queries/lab-sessions";
+import { listPracticals } from "@/db/queries/practicals";
+import { loadActor } from "@/db/queries/users";
+import { hasAnySchool, seedDemoSchool } from "@/db/seed/index";
+import { publishProblems } from "@/lib/validation/practicals";
+import { DEMO_PRACTICALS } from "@/db/seed/practicals";
+import { freshDatabase } from "../helpers/db";
+
+describe("the demo school", () => {
+  it("seeds once into an empty database, with every role signed-in-able and publishable practicals", async () => {
+    const { db } = freshDatabase();
+    expect(hasAnySchool(db)).toBe(false);
+    const now = new Date("2026-12-01T10:00:00Z");
+    const res = await seedDemoSchool(db, { now });
+    expect(hasAnySchool(db)).toBe(true);
+    for (const key of ["admin", "teacher", "student", "moderator", "parent", "hod"]) expect(loadActor(res.userIds.get(key)!)).not.toBeNull();
+    const teacher = loadActor(res.userIds.get("teacher")!)!;
+    expect(listPracticals({ actor: teacher }).length).toBe(DEMO_PRACTICALS.length);
+    for (const dp of DEMO_PRACTICALS) expect(publishProblems({ title: dp.title }, dp.content)).toEqual({});
+    const student = loadActor(res.userIds.get("student")!)!;
+    const states = listLabSessions({ actor: student, now }).map((s) => s.state).sort();
+    expect(states).toEqual(["open", "upcoming"]);
+  });
+});
