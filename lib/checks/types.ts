@@ -1,7 +1,10 @@
 import type { RichTextDoc } from "@/lib/validation/rich-text";
 
-/** Readings of one results table: one object per row, keyed by column id; blank cells are null. */
-export type TableRows = Record<string, number | null>[];
+/**
+ * Readings of one results table: one object per row, keyed by column id. A cell is the text the
+ * student typed (so decimal places and significant figures survive), a number, or null/"" when blank.
+ */
+export type TableRows = Record<string, string | number | null>[];
 
 /** What a student types for one calculation check. */
 export type CheckAnswer = {
