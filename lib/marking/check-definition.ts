@@ -96,7 +96,7 @@ export interface MeanOfRepeatsCheck extends CheckBase {
   readonly kind: "mean-of-repeats";
   /** The repeat columns (at least 2), in compatible units; the mean is in the first one's unit. */
   readonly repeats: readonly ColumnId[];
-  /** Anomaly threshold, percent from the median of the other repeats (default 10, common practice). */
+  /** Anomaly threshold, percent from the median of the repeats (default 10, common practice). */
   readonly anomalyPercent?: number;
 }
 

@@ -5,8 +5,8 @@ import { requireFiniteSeries } from "./internal/validate";
 export interface Anomaly {
   readonly index: number;
   readonly value: number;
-  /** Percentage gap from the median of the other readings. */
-  readonly percentFromOthers: number;
+  /** Percentage gap from the median of all the repeats. */
+  readonly percentFromMedian: number;
   readonly reason: string;
 }
 
@@ -21,9 +21,11 @@ function median(values: readonly number[]): number {
  * teacher's).
  *
  * Rule: with three or more readings, a reading is anomalous when it differs from the median of
- * the *other* readings by more than `thresholdPercent` of that median. If the rule would flag half
- * or more of the readings there is no agreed value to judge against, so none is flagged. With
- * fewer than three readings nothing can be flagged (there is no way to tell which is wrong).
+ * all the repeats by more than `thresholdPercent` of that median. (The median is used because an
+ * anomaly cannot pull it: with 62, 64 and 80 s the median is 64 s, so 80 s is 25 % away.) If the
+ * rule would flag half or more of the readings there is no agreed value to judge against, so none
+ * is flagged. With fewer than three readings nothing is flagged: there is no way to tell which is
+ * wrong.
  *
  * @param readings - repeat readings of one quantity, any unit
  * @param thresholdPercent - largest acceptable gap from the others' median, percent (default 10)
@@ -39,17 +41,16 @@ export function findAnomalies(readings: readonly number[], thresholdPercent = 10
   }
   if (readings.length < 3) return [];
   const flagged: Anomaly[] = [];
+  const centre = median(readings);
   readings.forEach((value, index) => {
-    const others = readings.filter((_, j) => j !== index);
-    const centre = median(others);
     const gap = Math.abs(value - centre);
     const percent = centre === 0 ? (gap === 0 ? 0 : Infinity) : (100 * gap) / Math.abs(centre);
     if (percent > thresholdPercent) {
       flagged.push({
         index,
         value,
-        percentFromOthers: percent,
-        reason: `This reading is ${Number.isFinite(percent) ? `${percent.toFixed(0)} %` : "far"} away from the middle of the other readings, more than the ${thresholdPercent} % allowed.`,
+        percentFromMedian: percent,
+        reason: `This reading is ${Number.isFinite(percent) ? `${percent.toFixed(0)} %` : "far"} away from the middle value of the repeats, more than the ${thresholdPercent} % allowed.`,
       });
     }
   });

@@ -3,7 +3,7 @@ import { MarkingInputError } from "./marking-input-error";
 
 /** Options for {@link meanOfRepeats}. */
 export interface MeanOfRepeatsOptions {
-  /** Anomaly threshold, percent from the median of the other readings (default 10, common practice). */
+  /** Anomaly threshold, percent from the median of the repeats (default 10, common practice). */
   readonly anomalyPercent?: number;
   /** false keeps every reading in the mean (default true: anomalies are left out). */
   readonly excludeAnomalies?: boolean;

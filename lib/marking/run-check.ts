@@ -172,7 +172,14 @@ function prepareSingle(definition: CheckDefinition, table: ResultsTable): Prepar
         try {
           const [a, b] = pairedColumns(table, [xs, ys], []);
           const other = linearFit(a, b, { throughOrigin: definition.throughOrigin === true });
-          const scale = code === "inverted-ratio" ? 1 : convertUnit(1, expectedUnit({ ...definition, x: xs, y: ys }, table.columns), unit);
+          let scale = 1;
+          if (code !== "inverted-ratio") {
+            try {
+              scale = convertUnit(1, expectedUnit({ ...definition, x: xs, y: ys }, table.columns), unit);
+            } catch {
+              scale = 1; // Different kinds of quantity: compare the numbers as the student would write them.
+            }
+          }
           slips.push({ code, value: other.slope * scale });
         } catch (error) {
           if (!(error instanceof MarkingInputError)) throw error;
