@@ -6,3 +6,4 @@ export * from "./invitations";
 export * from "./audit-log";
 export * from "./mail-messages";
 export * from "./practicals";
+export * from "./write-ups";
