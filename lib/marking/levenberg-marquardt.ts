@@ -40,7 +40,8 @@ function sumOfSquares(observed: readonly number[], fitted: readonly number[]): n
  * min || [J; sqrt(lambda) D] delta - [r; 0] || by Householder QR (J the Jacobian, r = y - f,
  * D = running column norms of J, as in More's 1978 scaling). A step is kept only when it lowers
  * S; lambda shrinks after a good step and grows after a poor one (gain-ratio rule). Converged
- * when both the relative step and the relative fall in S are below the tolerance.
+ * when both the relative step and the relative fall in S are below the tolerance, or when the
+ * residuals are down to rounding level (an exact fit).
  *
  * @param observed - measured values y_i, in the model's unit
  * @param model - model values and Jacobian for a parameter vector
@@ -69,6 +70,10 @@ export function levenbergMarquardt(
   if (!Number.isFinite(current)) {
     throw new MarkingInputError("not-converged", "levenbergMarquardt", "The curve cannot be drawn from this starting guess.");
   }
+  // A fit whose residuals are at rounding level is exact: stop there rather than chase noise.
+  let observedScale = 0;
+  for (const value of observed) observedScale = Math.max(observedScale, Math.abs(value));
+  const roundingFloor = observed.length * (4e-16 * observedScale) ** 2;
   const scaling = new Array<number>(parameterCount).fill(0);
   let lambda = 1e-3;
   let quietSteps = 0;
@@ -126,9 +131,9 @@ export function levenbergMarquardt(
         current = trialSum;
         if (gain > 0.75) lambda = Math.max(lambda / 3, 1e-16);
         else if (gain < 0.25) lambda *= 2;
-        if ((relativeFall <= tolerance && tinyStep) || current === 0) {
+        if ((relativeFall <= tolerance && tinyStep) || current <= roundingFloor) {
           quietSteps += 1;
-          if (quietSteps >= 2 || current === 0) {
+          if (quietSteps >= 2 || current <= roundingFloor) {
             return { parameters, residualSumOfSquares: current, iterations: iteration };
           }
         } else {

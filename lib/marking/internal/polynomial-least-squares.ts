@@ -115,6 +115,13 @@ export function polynomialLeastSquares(
   let spread = 0;
   for (const value of x) spread = Math.max(spread, Math.abs(value - centre));
   const scale = powerOfTwoAtLeast(spread);
+  if (!(scale ** degree > 1e-290 && scale ** degree < 1e290)) {
+    throw new MarkingInputError(
+      "ill-conditioned",
+      functionName,
+      "The x values are too extreme (too close together or too large) to fit; check their unit and size.",
+    );
+  }
 
   // Design matrix, column by column, in double-double.
   const columns: DoubleDouble[][] = powers.map(() => new Array<DoubleDouble>(n));
@@ -244,14 +251,19 @@ export function polynomialLeastSquares(
   const rSquared = totalSS.hi === 0 ? 1 : ddToNumber(ddSub(dd(1), ddDiv(residualSS, totalSS)));
   const residualVariance = ddToNumber(residualVarianceDd);
 
+  const coefficientStdErrs = rawCovarianceDd.map((row, i) => ddToNumber(ddSqrt(row[i])));
+  const coefficients = rawCoefficients.map(ddToNumber);
+  if (![...coefficients, ...coefficientStdErrs, rSquared, residualVariance].every(Number.isFinite)) {
+    throw new MarkingInputError("ill-conditioned", functionName, "The numbers are too extreme to fit; check their unit and size.");
+  }
   return {
     powers,
     centre,
     scale,
     scaledCoefficients: beta.map(ddToNumber),
     scaledUnitCovariance: unitCovariance.map((row) => row.map(ddToNumber)),
-    coefficients: rawCoefficients.map(ddToNumber),
-    coefficientStdErrs: rawCovarianceDd.map((row, i) => ddToNumber(ddSqrt(row[i]))),
+    coefficients,
+    coefficientStdErrs,
     covariance: rawCovarianceDd.map((row) => row.map(ddToNumber)),
     residualSumOfSquares: ddToNumber(residualSS),
     residualVariance,
