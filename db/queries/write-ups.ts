@@ -6,7 +6,8 @@ import { runPracticalCheck, studentView } from "@/lib/checks/run";
 import type { CheckAnswer, CheckOutcome, StudentCheckView } from "@/lib/checks/types";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import type { PracticalContent } from "@/lib/validation/practicals";
-import { writeUpContentSchema, type FilledTable, type GroupTables, type WriteUpContent } from "@/lib/validation/write-ups";
+import { writeUpContentSchema, type GroupTables, type WriteUpContent } from "@/lib/validation/write-ups";
+import { rowsForCheck } from "@/lib/write-ups/rows-for-check";
 import { answerFingerprint, checkDataFingerprint, isStale } from "@/lib/write-ups/stale";
 import { getDb, type DbOrTx } from "../client";
 import { checkAttempts, classes, classStudents, groupTables, labSessions, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
@@ -207,18 +208,6 @@ export function acknowledgeSafety({ actor, writeUpId, now = new Date() }: { acto
   });
 }
 
-/** Readings the student excluded become blanks for the check, so the check follows their decision. */
-function tableForCheck(t: FilledTable | undefined) {
-  const rows = (t?.rows ?? []).map((r) => ({ ...r }));
-  for (const [key, d] of Object.entries(t?.decisions ?? {})) {
-    if (d.include) continue;
-    const [row, col] = key.split(":");
-    const r = rows[Number(row)];
-    if (r && col) r[col] = null;
-  }
-  return rows;
-}
-
 /**
  * Runs one check on the student's saved data with the answer they typed, keeps the result with
  * fingerprints of the data and answer (to tell when it goes stale), logs the attempt for progress
@@ -235,7 +224,7 @@ export function runWriteUpCheck({ actor, writeUpId, checkId, answer, now = new D
     const table = version.content.tables.find((t) => t.id === spec.tableId);
     if (!table) throw notFound("That results table");
     const { tables } = effectiveTables(db, s, w);
-    const outcome = runPracticalCheck(spec, table, tableForCheck(tables[spec.tableId]), answer);
+    const outcome = runPracticalCheck(spec, table, rowsForCheck(tables[spec.tableId]), answer);
     const stored = { outcome, dataHash: checkDataFingerprint(spec, tables), answerHash: answerFingerprint(answer), at: now.getTime() };
     db.update(writeUps).set({ checkResults: { ...w.checkResults, [checkId]: stored } }).where(eq(writeUps.id, w.id)).run();
     db.insert(checkAttempts).values({ schoolId: actor.schoolId, writeUpId: w.id, studentId: w.studentId, checkId, kind: spec.kind, verdict: outcome.verdict, slipCode: outcome.likelySlip?.code ?? null, at: now }).run();

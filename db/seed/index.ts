@@ -1,8 +1,9 @@
 import { eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import type { Db } from "../client";
-import { auditLog, classes, classStudents, classTeachers, invitations, labSessions, parentLinks, practicals, practicalVersions, rubrics, schools, userRoles, users } from "../schema";
+import { auditLog, checkAttempts, classes, classStudents, classTeachers, invitations, labSessions, parentLinks, practicals, practicalVersions, rubrics, schools, userRoles, users, writeUps } from "../schema";
 import { DEMO_PRACTICALS } from "./practicals";
+import { writeUpFor, type Scenario } from "./write-ups";
 import { hashToken, newToken } from "@/lib/tokens";
 import { ACADEMIC_YEAR, CLASSES, DEMO_DOMAIN, DEMO_PASSWORD, DEMO_SCHOOL, PARENTS, STAFF, demoStudents, type DemoPerson } from "./people";
 
@@ -125,6 +126,49 @@ export async function seedDemoSchool(db: Db, { now = new Date() }: { now?: Date 
     schedule("12A-thio", "thiosulfate", "12A", "hod", -2, 7);
     schedule("10C-peroxide", "peroxide", "10C", "teacher", 5, 7);
     schedule("11P-resistance", "resistance", "11P", "physics", -1, 7);
+
+    // Write-ups with generated readings and a few deliberate slips.
+    const practicalByKey = new Map(DEMO_PRACTICALS.map((dp) => [dp.key, dp]));
+    const fillSession = (sessionKey: string, practicalKey: string, classKey: string, scenarioFor: (i: number, personKey: string) => Scenario, opensAt: Date, dueAt: Date) => {
+      const dp = practicalByKey.get(practicalKey)!;
+      students
+        .filter((st) => st.classKey === classKey)
+        .forEach(({ person }, i) => {
+          const scenario = scenarioFor(i, person.key);
+          if (scenario === "not-started") return;
+          const studentId = userIds.get(person.key)!;
+          const generated = writeUpFor(practicalKey, dp.content, i, scenario);
+          const started = new Date(opensAt.getTime() + (1 + (i % 5)) * 3_600_000);
+          const submittedAt = scenario === "submitted" ? new Date(dueAt.getTime() - (1 + (i % 3)) * 86_400_000) : scenario === "late" ? new Date(dueAt.getTime() + (1 + (i % 2)) * 86_400_000) : null;
+          const writeUpId = tx
+            .insert(writeUps)
+            .values({
+              schoolId,
+              labSessionId: labSessionIds.get(sessionKey)!,
+              studentId,
+              practicalVersionId: practicalVersionIds.get(practicalKey)!,
+              status: scenario === "draft" ? "draft" : "submitted",
+              revision: 4 + (i % 7),
+              content: generated.content,
+              checkResults: generated.checkResults,
+              safetyAcknowledgedAt: started,
+              submittedAt,
+              late: scenario === "late",
+              createdAt: started,
+              updatedAt: submittedAt ?? started,
+            })
+            .returning({ id: writeUps.id })
+            .get().id;
+          for (const a of generated.attempts) tx.insert(checkAttempts).values({ schoolId, writeUpId, studentId, ...a, at: submittedAt ?? started }).run();
+        });
+    };
+    const sessionDates = (key: string) => tx.select({ opensAt: labSessions.opensAt, dueAt: labSessions.dueAt }).from(labSessions).where(eq(labSessions.id, labSessionIds.get(key)!)).get()!;
+    const d10D = sessionDates("10D-mg");
+    fillSession("10D-mg", "mg-acid", "10D", (i) => (i === 5 || i === 17 ? "not-started" : i % 7 === 3 ? "late" : "submitted"), d10D.opensAt, d10D.dueAt);
+    const d10C = sessionDates("10C-mg");
+    fillSession("10C-mg", "mg-acid", "10C", (i, key) => (key === "student" || i % 2 === 1 ? "draft" : "not-started"), d10C.opensAt, d10C.dueAt);
+    const d12A = sessionDates("12A-thio");
+    fillSession("12A-thio", "thiosulfate", "12A", (i, key) => (key === "sibling" || i % 3 !== 2 ? "draft" : "not-started"), d12A.opensAt, d12A.dueAt);
 
     tx.insert(auditLog).values({ schoolId, actorId: null, action: "school.seed", entityType: "school", entityId: schoolId, after: { people: userIds.size, classes: classIds.size, domain: DEMO_DOMAIN }, at: now }).run();
     return { schoolId, userIds, classIds, practicalVersionIds, labSessionIds };

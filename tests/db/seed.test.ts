@@ -5,6 +5,7 @@ import { loadActor } from "@/db/queries/users";
 import { hasAnySchool, seedDemoSchool } from "@/db/seed/index";
 import { publishProblems } from "@/lib/validation/practicals";
 import { DEMO_PRACTICALS } from "@/db/seed/practicals";
+import { checkAttempts } from "@/db/schema";
 import { freshDatabase } from "../helpers/db";
 
 describe("the demo school", () => {
@@ -21,5 +22,10 @@ describe("the demo school", () => {
     const student = loadActor(res.userIds.get("student")!)!;
     const states = listLabSessions({ actor: student, now }).map((s) => s.state).sort();
     expect(states).toEqual(["open", "upcoming"]);
+    // Generated data with deliberate slips: every verdict, and named slips, appear in the demo.
+    const attempts = db.select().from(checkAttempts).all();
+    expect(new Set(attempts.map((a) => a.verdict))).toEqual(new Set(["agrees", "close", "disagrees", "cannot-check"]));
+    expect(attempts.some((a) => a.slipCode === "minutes-for-seconds")).toBe(true);
+    expect(attempts.some((a) => a.slipCode === "tangent-not-touching")).toBe(true);
   });
 });
