@@ -94,7 +94,9 @@ export function previewRoster({ actor, classId, csv }: { actor: Actor; classId: 
   }
   for (const e of parsed.errors) {
     if (e.code === "UndetectableDelimiter") continue;
-    fileErrors.push(`Line ${(e.row ?? 0) + 2}: ${e.message}.`);
+    // papaparse counts the header as row 0 for an unclosed quote, but not for other errors.
+    const line = (e.row ?? 0) + (e.code === "MissingQuotes" ? 1 : 2);
+    fileErrors.push(`Line ${line}: ${e.message}.`);
   }
   if (parsed.data.length === 0 && !fileErrors.length) fileErrors.push("The file has a header line but no students.");
   if (parsed.data.length > ROSTER_MAX_ROWS) fileErrors.push(`The file has ${parsed.data.length} rows; import at most ${ROSTER_MAX_ROWS} at a time.`);
@@ -173,6 +175,15 @@ export function previewRoster({ actor, classId, csv }: { actor: Actor; classId: 
       else if (!p.roles.includes("parent")) row.errors.push("Parent e-mail: this address belongs to an account that is not a parent. Link it from the person's page instead.");
       else row.parent = s && links.has(`${p.id}:${s.id}`) ? "already-linked" : "existing";
     }
+  }
+  // An address cannot be a student on one line and a parent on another.
+  const studentEmails = new Map(valid.map(({ row }) => [row.email, row.line]));
+  const parentEmails = new Map(valid.filter(({ data }) => data.parentEmail).map(({ row, data }) => [data.parentEmail!, row.line]));
+  for (const { row, data } of valid) {
+    const asParent = parentEmails.get(row.email);
+    if (asParent !== undefined && asParent !== row.line) row.errors.push(`E-mail: ${row.email} is also given as a parent's e-mail on line ${asParent}.`);
+    const asStudent = data.parentEmail ? studentEmails.get(data.parentEmail) : undefined;
+    if (asStudent !== undefined && asStudent !== row.line) row.errors.push(`Parent e-mail: ${data.parentEmail} is also a student's e-mail on line ${asStudent}.`);
   }
   const newParentEmails = new Set(valid.filter(({ row }) => row.parent === "new").map(({ data }) => data.parentEmail));
   return {

@@ -28,13 +28,16 @@ export const parentLinkSchema = z.object({
   relationship: z.string().trim().min(1).max(40, "Keep the relationship short, like Mother or Guardian.").default("Parent"),
 });
 
+/** A spreadsheet cell that is empty or holds only spaces counts as not given. */
+const blankToUndefined = (v: unknown) => (v == null || (typeof v === "string" && v.trim() === "") ? undefined : v);
+
 /** One row of a roster CSV, after the header names have been matched. */
 export const rosterRowSchema = z.object({
   name: personNameSchema,
   email: emailSchema,
-  yearGroup: z.preprocess((v) => (v === "" || v == null ? undefined : v), yearGroupSchema.optional()),
-  parentName: z.preprocess((v) => (v === "" || v == null ? undefined : v), personNameSchema.optional()),
-  parentEmail: z.preprocess((v) => (v === "" || v == null ? undefined : v), emailSchema.optional()),
+  yearGroup: z.preprocess(blankToUndefined, yearGroupSchema.optional()),
+  parentName: z.preprocess(blankToUndefined, personNameSchema.optional()),
+  parentEmail: z.preprocess(blankToUndefined, emailSchema.optional()),
   relationship: z.preprocess(
     (v) => (v === "" || v == null ? undefined : v),
     z.string().trim().max(40, "Keep the relationship short, like Mother or Guardian.").optional(),

@@ -41,11 +41,7 @@ describe("roster import", () => {
       expectRefusedImport(csv);
     });
 
-    // Known bug: papaparse counts the header as row 0 for MissingQuotes errors (but not for
-    // field-count errors), so roster.ts reports the line after the one with the stray quote.
-    // Fix in previewRoster: use `(e.row ?? 0) + 1` when e.code === "MissingQuotes".
-    // Turn this back into it(...) once fixed.
-    it.fails("names the line where the unclosed quote opens", () => {
+    it("names the line where the unclosed quote opens", () => {
       const csv = lines("name,email", "Ada Fenn,ada@test.example", '"Bram Olsen,bram@test.example', "Cleo Hart,cleo@test.example");
       const preview = previewRoster({ actor: admin, classId, csv });
       expect(preview.fileErrors).toContain("Line 3: Quoted field unterminated.");
@@ -141,13 +137,7 @@ describe("roster import", () => {
       expectRefusedImport(csv);
     });
 
-    // Known bug: the preview checks each address against the database and against other rows'
-    // student addresses, but not a student address of one row against a parent address of
-    // another. The import then fails half-way inside its transaction (nothing is written, but the
-    // admin gets "Only students in this school can join a class." instead of a row error).
-    // Fix in previewRoster: collect the file's student and parent addresses and add a row error
-    // when an address appears in both sets. Turn this back into it(...) once fixed.
-    it.fails("flags an address used as a student on one line and as a parent on another", () => {
+    it("flags an address used as a student on one line and as a parent on another", () => {
       const csv = lines("name,email,parent name,parent email", "Ada Fenn,ada@test.example,Olga Olsen,olsen@test.example", "Olga Olsen,olsen@test.example,,");
       expect(previewRoster({ actor: admin, classId, csv }).summary.withErrors).toBeGreaterThan(0);
     });
@@ -175,12 +165,7 @@ describe("roster import", () => {
       expect(preview.summary).toEqual({ rows: 2, withErrors: 0, newStudents: 2, existingStudents: 0, newParents: 1 });
     });
 
-    // Known bug: lib/validation/classes.ts rosterRowSchema treats only "" as an empty optional
-    // cell, so a cell holding a space (common in exported spreadsheets) is read as year group 0
-    // ("must be a whole number from 1 to 13") or as a blank parent name ("Enter a name.").
-    // Fix: preprocess with `(v) => (v == null || (typeof v === "string" && v.trim() === "") ? undefined : v)`.
-    // Turn this back into it(...) once fixed.
-    it.fails("treats a cell holding only spaces as empty", () => {
+    it("treats a cell holding only spaces as empty", () => {
       const csv = lines("name,email,year group,parent name,parent email", "Bram Olsen,bram@test.example, , , ");
       expect(previewRoster({ actor: admin, classId, csv }).rows[0]!.errors).toEqual([]);
     });
