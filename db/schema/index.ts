@@ -7,3 +7,4 @@ export * from "./audit-log";
 export * from "./mail-messages";
 export * from "./practicals";
 export * from "./write-ups";
+export * from "./marking";
