@@ -89,3 +89,9 @@ export { runCheck, type CheckAnswerInput, type CheckResult, type ExpectedValue, 
 export { solveDilution, type Dilution, type DilutionInput } from "./solve-dilution";
 export { convertPeroxideStrength, type PeroxideStrength, type PeroxideStrengthInput } from "./convert-peroxide-strength";
 export { scalePrepQuantity, type PrepQuantity, type PrepQuantityInput } from "./scale-prep-quantity";
+
+// Moderation: sampling, agreement, adjustment
+export { drawModerationSample, defaultSampleRule, type MarkedWork, type ModerationSampleDraw, type SampleRuleInput } from "./draw-moderation-sample";
+export { weightedKappa, type WeightedKappa } from "./weighted-kappa";
+export { markingAgreement, type AgreementCriterion, type CriterionAgreement, type MarkedPair, type MarkingAgreement } from "./marking-agreement";
+export { suggestMarkAdjustment, type MarkAdjustment } from "./suggest-mark-adjustment";
