@@ -251,7 +251,7 @@ export function describeCheck(check: CheckSpec, table: TableTemplate | undefined
       what = `Students work out the percentage uncertainty in ${h(check.reading)} from a resolution of ${num(check.resolution)}${check.readingsPerValue === 2 ? ", with two readings (start and end) for each value" : ""}.`;
       break;
   }
-  const parts = [what, `An answer within ${num(check.tolerancePercent)} % of Meniscus's value agrees.`];
+  const parts = [what, `An answer within ${num(check.tolerancePercent)}\u00a0% of Meniscus’s value agrees.`];
   if (check.sigFigs) parts.push(check.sigFigs.min === check.sigFigs.max ? `Give it to ${check.sigFigs.min} significant figures.` : `Give it to ${check.sigFigs.min} to ${check.sigFigs.max} significant figures.`);
   if (check.expectedUnit.trim()) parts.push(`Unit: ${check.expectedUnit.trim()}.`);
   parts.push(`Students see ${CHECK_VISIBILITY_LABELS[check.show].toLowerCase()}.`);

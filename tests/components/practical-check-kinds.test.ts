@@ -119,7 +119,7 @@ describe("units and words", () => {
     const c = { ...makeCheck("mean-rate", gasTable, { id: "k1" }), sigFigs: { min: 2, max: 3 } };
     const text = describeCheck(c, gasTable);
     expect(text).toContain("the change in “volume of gas / cm³” divided by the change in “time / s”, from 0 s to 30 s");
-    expect(text).toContain("within 5 % of Meniscus");
+    expect(text).toContain("within 5\u00a0% of Meniscus’s value agrees");
     expect(text).toContain("2 to 3 significant figures");
     expect(text).toContain("Students see the verdict and a hint.");
     expect(describeCheck({ ...c, y: "gone" }, gasTable)).toContain("a column that is not in the table");
