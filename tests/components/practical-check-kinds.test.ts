@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { CHECK_KIND_LABELS, changeCheckKind, DEFAULT_TOLERANCE, describeCheck, makeCheck, moveCheckToTable, suggestedUnit } from "@/components/practicals/check-kinds";
-import { checkColumnRefs, CHECK_KINDS, checkSchema, type TableTemplate } from "@/lib/validation/practicals";
+import { checkColumnRefs, CHECK_KINDS, checkSchema, type CheckSpec, type TableTemplate } from "@/lib/validation/practicals";
 import { columnHeader, ratioUnit } from "@/components/practicals/units";
 
 const col = (id: string, quantity: string, unit: string, role: TableTemplate["columns"][number]["role"], extra: Partial<TableTemplate["columns"][number]> = {}) => ({
@@ -116,7 +116,7 @@ describe("units and words", () => {
   });
 
   it("describes a check in plain words", () => {
-    const c = { ...makeCheck("mean-rate", gasTable, { id: "k1" }), sigFigs: { min: 2, max: 3 } };
+    const c = { ...(makeCheck("mean-rate", gasTable, { id: "k1" }) as Extract<CheckSpec, { kind: "mean-rate" }>), sigFigs: { min: 2, max: 3 } };
     const text = describeCheck(c, gasTable);
     expect(text).toContain("the change in “volume of gas / cm³” divided by the change in “time / s”, from 0 s to 30 s");
     expect(text).toContain("within 5\u00a0% of Meniscus’s value agrees");

@@ -9,7 +9,7 @@ import { sanitizeRichText, type RichTextDoc } from "@/lib/validation/rich-text";
 
 afterEach(() => cleanup());
 
-const doc = (...content: RichTextDoc["content"] & object[]): RichTextDoc => ({ type: "doc", content });
+const doc = (...content: object[]): RichTextDoc => ({ type: "doc", content: content as RichTextDoc["content"] });
 const p = (...content: object[]) => ({ type: "paragraph", content });
 const t = (text: string, marks?: object[]) => ({ type: "text", text, ...(marks ? { marks } : {}) });
 
