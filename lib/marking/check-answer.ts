@@ -1,4 +1,4 @@
-import { convertUnit } from "./convert-unit";
+import { unitConversion } from "./internal/unit-conversion";
 import { findLikelySlip, unitSlipCandidates, type LikelySlip, type SlipCandidate } from "./find-likely-slip";
 import { MarkingInputError } from "./marking-input-error";
 import { parseTypedNumber, type TypedNumber } from "./parse-typed-number";
@@ -204,8 +204,9 @@ export function checkAnswer(expected: ExpectedAnswer, answer: StudentAnswer, pol
     }
     if (parsedAnswer && parsedExpected) {
       try {
-        answerValue = convertUnit(typed.value, unitText, expectedUnit);
-        unitScale = Math.abs(convertUnit(1, unitText, expectedUnit) - convertUnit(0, unitText, expectedUnit));
+        const toExpected = unitConversion(unitText, expectedUnit, "checkAnswer");
+        answerValue = toExpected(typed.value);
+        unitScale = Math.abs(toExpected(1) - toExpected(0));
       } catch {
         unitOk = false;
         unitHint = "The unit you gave does not fit this quantity; think about what was divided by what.";

@@ -1,5 +1,4 @@
-import { MarkingInputError } from "./marking-input-error";
-import { parseUnit } from "./parse-unit";
+import { unitConversion } from "./internal/unit-conversion";
 import { requireFiniteNumber } from "./internal/validate";
 
 /**
@@ -21,22 +20,5 @@ import { requireFiniteNumber } from "./internal/validate";
  */
 export function convertUnit(value: number, fromUnit: string, toUnit: string): number {
   requireFiniteNumber(value, "value to convert", "convertUnit");
-  const from = parseUnit(fromUnit);
-  const to = parseUnit(toUnit);
-  if (from.dimensions.some((exponent, i) => exponent !== to.dimensions[i])) {
-    const fromText = from.display || "a plain number";
-    const toText = to.display || "a plain number";
-    throw new MarkingInputError(
-      "incompatible-units",
-      "convertUnit",
-      `${fromText} and ${toText} measure different kinds of quantity, so one cannot be changed into the other.`,
-    );
-  }
-  const bothScales = from.isTemperatureScale && to.isTemperatureScale;
-  if (bothScales) return value * from.factor + from.offset - to.offset;
-  // Scale by the ratio of multipliers, then by an exact power of ten (dividing for negative
-  // powers, so that 1 cm3 -> dm3 gives exactly 0.001).
-  const scaled = (value * from.multiplier) / to.multiplier;
-  const shift = from.powerOfTen - to.powerOfTen;
-  return shift >= 0 ? scaled * Number(`1e${shift}`) : scaled / Number(`1e${-shift}`);
+  return unitConversion(fromUnit, toUnit, "convertUnit")(value);
 }

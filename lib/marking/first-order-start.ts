@@ -1,4 +1,3 @@
-import { householderLeastSquares } from "./internal/householder-least-squares";
 import { MarkingInputError } from "./marking-input-error";
 import { countDistinct, requireFiniteSeries, requireSameLength } from "./internal/validate";
 
@@ -18,8 +17,10 @@ function shape(kind: FirstOrderKind, k: number, t: number): number {
 }
 
 /**
- * For a fixed rate constant k the model is linear in a and c, so the best a and c follow from a
- * small least-squares solve (variable projection). Returns the residual sum of squares, a and c.
+ * For a fixed rate constant k the model is linear in a and c, so the best a and c follow in
+ * closed form (variable projection): a = S_fy / S_ff and c = mean(y) - a mean(f) with f the
+ * curve shape at each time, or a = sum(f y) / sum(f^2) without an offset. Returns the residual
+ * sum of squares, a and c, or null when the shape does not vary (k too small to show).
  */
 export function bestAmplitudeForRate(
   kind: FirstOrderKind,
@@ -28,14 +29,31 @@ export function bestAmplitudeForRate(
   y: readonly number[],
   k: number,
 ): { a: number; c: number; residualSumOfSquares: number } | null {
-  const rows = t.map((time) => (offset ? [shape(kind, k, time), 1] : [shape(kind, k, time)]));
-  const solved = householderLeastSquares(rows, y);
-  if (solved === null) return null;
-  return {
-    a: solved.solution[0],
-    c: offset ? solved.solution[1] : 0,
-    residualSumOfSquares: solved.residualNorm * solved.residualNorm,
-  };
+  const n = t.length;
+  let shapeSum = 0;
+  let ySum = 0;
+  for (let i = 0; i < n; i += 1) {
+    shapeSum += shape(kind, k, t[i]);
+    ySum += y[i];
+  }
+  const shapeMean = offset ? shapeSum / n : 0;
+  const yMean = offset ? ySum / n : 0;
+  let sff = 0;
+  let sfy = 0;
+  for (let i = 0; i < n; i += 1) {
+    const f = shape(kind, k, t[i]) - shapeMean;
+    sff += f * f;
+    sfy += f * (y[i] - yMean);
+  }
+  if (!(sff > 0) || !Number.isFinite(sfy)) return null;
+  const a = sfy / sff;
+  const c = offset ? yMean - a * shapeMean : 0;
+  let residualSumOfSquares = 0;
+  for (let i = 0; i < n; i += 1) {
+    const residual = y[i] - a * shape(kind, k, t[i]) - c;
+    residualSumOfSquares += residual * residual;
+  }
+  return { a, c, residualSumOfSquares };
 }
 
 /**

@@ -1,5 +1,5 @@
-import { MarkingInputError } from "./marking-input-error";
-import { requireDistinct, requireFiniteNumber, requireFiniteSeries, requireMinimumPoints, requireSameLength } from "./internal/validate";
+import { interpolateSorted, requireWithin, sortReadings } from "./internal/sorted-readings";
+import { requireFiniteNumber } from "./internal/validate";
 
 /**
  * Value of y at a chosen x by straight-line interpolation between the two nearest readings.
@@ -18,30 +18,8 @@ import { requireDistinct, requireFiniteNumber, requireFiniteSeries, requireMinim
  */
 export function interpolateLinear(x: readonly number[], y: readonly number[], at: number): number {
   const functionName = "interpolateLinear";
-  requireFiniteSeries(x, "x", functionName);
-  requireFiniteSeries(y, "y", functionName);
-  requireSameLength(x, y, "x", "y", functionName);
-  requireMinimumPoints(x.length, 2, "Reading a value between readings", functionName);
-  requireDistinct(x, "x", functionName);
+  const readings = sortReadings(x, y, { x: "x", y: "y", purpose: "Reading a value between readings" }, 2, functionName);
   requireFiniteNumber(at, "chosen x", functionName);
-  const order = x.map((_, i) => i).sort((i, j) => x[i] - x[j]);
-  const low = x[order[0]];
-  const high = x[order[order.length - 1]];
-  if (at < low || at > high) {
-    throw new MarkingInputError(
-      "out-of-range",
-      functionName,
-      `The value ${at} is outside the readings (${low} to ${high}); choose a point between the first and last reading.`,
-    );
-  }
-  for (let s = 1; s < order.length; s += 1) {
-    const i = order[s - 1];
-    const j = order[s];
-    if (at <= x[j]) {
-      if (at === x[j]) return y[j];
-      if (at === x[i]) return y[i];
-      return y[i] + ((at - x[i]) * (y[j] - y[i])) / (x[j] - x[i]);
-    }
-  }
-  return y[order[order.length - 1]];
+  requireWithin(readings, at, "value", functionName);
+  return interpolateSorted(readings, at);
 }

@@ -1,4 +1,4 @@
-import { polynomialLeastSquares } from "./internal/polynomial-least-squares";
+import { straightLineLeastSquares } from "./internal/straight-line-least-squares";
 
 /** Options for {@link linearFit}. */
 export interface LinearFitOptions {
@@ -32,9 +32,11 @@ export interface LinearFit {
 /**
  * Least-squares straight line (ordinary least squares), with or without an intercept.
  *
- * Minimises sum (y_i - (intercept + slope * x_i))^2. Solved by Householder QR on the centred and
- * scaled x, in double-double arithmetic (never the normal equations), so that hard data such as
- * NIST's Norris and NoInt sets come out to at least 12 significant digits. Standard errors:
+ * Minimises sum (y_i - (intercept + slope * x_i))^2. Solved on centred x, where the design
+ * matrix [1, x - mean x] has orthogonal columns, so its QR solution is slope =
+ * sum(dx dy) / sum(dx^2) and intercept = mean y - slope x mean x; every sum is carried in
+ * double-double arithmetic (about 32 digits), so that NIST's Norris and NoInt sets come out to at
+ * least 12 significant digits. Standard errors:
  * s_slope = s / sqrt(sum (x - mean x)^2), s_intercept = s * sqrt(1/n + mean(x)^2 / sum (x - mean x)^2)
  * with s = sqrt(SSres / (n - 2)); through the origin s_slope = s / sqrt(sum x^2), s with n - 1.
  *
@@ -50,17 +52,5 @@ export interface LinearFit {
  */
 export function linearFit(x: readonly number[], y: readonly number[], options: LinearFitOptions = {}): LinearFit {
   const throughOrigin = options.throughOrigin === true;
-  const fit = polynomialLeastSquares(x, y, 1, throughOrigin, "linearFit");
-  const slopeIndex = throughOrigin ? 0 : 1;
-  return {
-    slope: fit.coefficients[slopeIndex],
-    intercept: throughOrigin ? 0 : fit.coefficients[0],
-    slopeStdErr: fit.coefficientStdErrs[slopeIndex],
-    interceptStdErr: throughOrigin ? 0 : fit.coefficientStdErrs[0],
-    rSquared: fit.rSquared,
-    residualStdDev: fit.residualStdDev,
-    degreesOfFreedom: fit.degreesOfFreedom,
-    count: fit.count,
-    throughOrigin,
-  };
+  return { ...straightLineLeastSquares(x, y, throughOrigin, "linearFit"), throughOrigin };
 }

@@ -1,4 +1,4 @@
-import { interpolateLinear } from "./interpolate-linear";
+import { interpolateSorted, requireWithin, sortReadings } from "./internal/sorted-readings";
 import { MarkingInputError } from "./marking-input-error";
 import { requireFiniteNumber } from "./internal/validate";
 
@@ -38,8 +38,11 @@ export function meanRate(
   if (from === to) {
     throw new MarkingInputError("x-all-equal", "meanRate", "The interval starts and ends at the same time; choose two different times.");
   }
-  const start = interpolateLinear(x, y, from);
-  const end = interpolateLinear(x, y, to);
+  const readings = sortReadings(x, y, { x: "x", y: "y", purpose: "A mean rate" }, 2, "meanRate");
+  requireWithin(readings, from, "start of the interval", "meanRate");
+  requireWithin(readings, to, "end of the interval", "meanRate");
+  const start = interpolateSorted(readings, from);
+  const end = interpolateSorted(readings, to);
   const gradient = (end - start) / (to - from);
   return options.signed ? gradient : Math.abs(gradient);
 }

@@ -69,6 +69,19 @@ export function parseUnit(text: string): ParsedUnit {
   if (typeof text !== "string") {
     throw new MarkingInputError("unknown-unit", "parseUnit", "The unit must be typed as text, for example cm3/s.");
   }
+  const cached = parsedUnits.get(text);
+  if (cached) return cached;
+  const parsed = Object.freeze(parseUnitText(text));
+  if (parsedUnits.size >= 512) parsedUnits.clear();
+  parsedUnits.set(text, parsed);
+  return parsed;
+}
+
+// Units repeat endlessly across a class's write-ups, so parsed units are remembered (the result
+// depends only on the text, so this changes nothing but speed).
+const parsedUnits = new Map<string, ParsedUnit>();
+
+function parseUnitText(text: string): ParsedUnit {
   const source = normalise(text);
   const tokens = source.match(/\/|[A-Za-zµμΩ°℃%]+(?:\^\s*\(\s*[-+]?\d+\s*\)|\^?\s*[-+]?\d+)?|\^\s*\(\s*[-+]?\d+\s*\)|\^?[-+]?\d+|\(|\)|\S/g) ?? [];
   let position = 0;

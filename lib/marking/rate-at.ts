@@ -2,7 +2,8 @@ import { firstOrderFit, type FirstOrderFit } from "./first-order-fit";
 import { localRegression } from "./local-regression";
 import { MarkingInputError } from "./marking-input-error";
 import { polynomialLeastSquares, polynomialValueAndSlope } from "./internal/polynomial-least-squares";
-import { requireDistinct, requireFiniteNumber, requireFiniteSeries, requireMinimumPoints, requireSameLength } from "./internal/validate";
+import { sortReadings, type SortedReadings } from "./internal/sorted-readings";
+import { requireFiniteNumber } from "./internal/validate";
 
 /** Curve models a tangent can be taken from. */
 export type RateModel = "first-order" | "polynomial" | "local" | "auto";
@@ -50,11 +51,33 @@ function firstOrderGradient(fit: FirstOrderFit, t: number): { value: number; gra
   return { value, gradient, uncertainty: Math.sqrt(Math.max(0, variance)) };
 }
 
-function tryFirstOrder(x: readonly number[], y: readonly number[]): FirstOrderFit | null {
-  const order = x.map((_, i) => i).sort((i, j) => x[i] - x[j]);
-  const kind = y[order[order.length - 1]] >= y[order[0]] ? "rise" : "decay";
+// The marking bench asks for several tangents on the same table (rate at a time, initial rate),
+// so first-order fits are remembered by their data. The fit depends only on the numbers, so this
+// changes nothing but speed.
+const rememberedFits = new Map<string, FirstOrderFit | MarkingInputError>();
+
+function fitFirstOrder(readings: SortedReadings): FirstOrderFit {
+  const { x, y } = readings;
+  const kind = y[y.length - 1] >= y[0] ? "rise" : "decay";
+  const key = `${x.join(",")}|${y.join(",")}`;
+  let remembered = rememberedFits.get(key);
+  if (remembered === undefined) {
+    try {
+      remembered = firstOrderFit(Array.from(x), Array.from(y), { kind, offset: x.length >= 5 });
+    } catch (error) {
+      if (!(error instanceof MarkingInputError)) throw error;
+      remembered = error;
+    }
+    if (rememberedFits.size >= 256) rememberedFits.clear();
+    rememberedFits.set(key, remembered);
+  }
+  if (remembered instanceof MarkingInputError) throw remembered;
+  return remembered;
+}
+
+function tryFirstOrder(readings: SortedReadings): FirstOrderFit | null {
   try {
-    return firstOrderFit(x, y, { kind, offset: x.length >= 5 });
+    return fitFirstOrder(readings);
   } catch (error) {
     if (error instanceof MarkingInputError) return null;
     throw error;
@@ -87,18 +110,14 @@ function tryFirstOrder(x: readonly number[], y: readonly number[]): FirstOrderFi
  */
 export function rateAt(x: readonly number[], y: readonly number[], at: number, options: RateAtOptions = {}): RateAt {
   const functionName = "rateAt";
-  requireFiniteSeries(x, "time", functionName);
-  requireFiniteSeries(y, "reading", functionName);
-  requireSameLength(x, y, "time", "reading", functionName);
-  requireMinimumPoints(x.length, 3, "A rate from a curve", functionName);
-  requireDistinct(x, "time", functionName);
+  const readings = sortReadings(x, y, { x: "time", y: "reading", purpose: "A rate from a curve" }, 3, functionName);
   requireFiniteNumber(at, "chosen time", functionName);
   const model = options.model ?? "auto";
   if (!["first-order", "polynomial", "local", "auto"].includes(model)) {
     throw new MarkingInputError("invalid-option", functionName, 'The curve must be "first-order", "polynomial", "local" or "auto".');
   }
-  const low = Math.min(...x);
-  const high = Math.max(...x);
+  const low = readings.x[0];
+  const high = readings.x[readings.x.length - 1];
   if (at < low || at > high) {
     throw new MarkingInputError(
       "out-of-range",
@@ -152,17 +171,15 @@ export function rateAt(x: readonly number[], y: readonly number[], at: number, o
   };
 
   if (model === "first-order") {
-    const order = x.map((_, i) => i).sort((i, j) => x[i] - x[j]);
-    const kind = y[order[order.length - 1]] >= y[order[0]] ? "rise" : "decay";
-    const fit = firstOrderFit(x, y, { kind, offset: x.length >= 5 });
+    const fit = fitFirstOrder(readings);
     const point = firstOrderGradient(fit, at);
-    return finish(point.gradient, point.uncertainty, "first-order", point.value, `First-order ${kind} curve, as asked.`, fit.rSquared, atEnd);
+    return finish(point.gradient, point.uncertainty, "first-order", point.value, `First-order ${fit.kind} curve, as asked.`, fit.rSquared, atEnd);
   }
   if (model === "polynomial") return polynomial(`Polynomial curve, as asked.`);
   if (model === "local") return local("Smooth local curve, as asked.");
 
   if (x.length >= 4) {
-    const fit = tryFirstOrder(x, y);
+    const fit = tryFirstOrder(readings);
     if (fit && fit.rSquared >= 0.98 && fit.residualStdDev <= 0.05 * yRange) {
       const point = firstOrderGradient(fit, at);
       return finish(

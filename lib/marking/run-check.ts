@@ -14,6 +14,7 @@ import { rateAt } from "./rate-at";
 import { reactionOrder } from "./reaction-order";
 import { resolutionUncertainty } from "./resolution-uncertainty";
 import { validateCheckDefinition } from "./validate-check-definition";
+import { interpolateSorted, sortReadings } from "./internal/sorted-readings";
 
 /** The student's answer to a check: one answer, or one per row for the per-row kinds. */
 export type CheckAnswerInput = StudentAnswer | { readonly rows: readonly (StudentAnswer | null)[] };
@@ -136,7 +137,11 @@ function prepareSingle(definition: CheckDefinition, table: ResultsTable): Prepar
       const signed = definition.signed === true;
       const value = meanRate(x, y, definition.from, definition.to, { signed });
       const sorted = [...x].sort((a, b) => a - b);
-      const previous = (at: number): number => sorted.filter((value_) => value_ < at).at(-1) ?? at;
+      const previous = (at: number): number => {
+        let found = at;
+        for (const value_ of sorted) if (value_ < at) found = value_;
+        return found;
+      };
       const next = (at: number): number => sorted.find((value_) => value_ > at) ?? at;
       const { from, to } = definition;
       const low = Math.min(from, to);
@@ -150,12 +155,13 @@ function prepareSingle(definition: CheckDefinition, table: ResultsTable): Prepar
         [low, sorted[sorted.length - 1]],
       ];
       const slips: SlipCandidate[] = [];
+      const readings = sortReadings(x, y, { x: "x", y: "y", purpose: "A mean rate" }, 2, functionName);
+      const first = readings.x[0];
+      const last = readings.x[readings.x.length - 1];
       for (const [a, b] of uniqueIntervals([...(definition.alternativeIntervals ?? []), ...neighbours], [low, high])) {
-        try {
-          slips.push({ code: "wrong-interval", value: meanRate(x, y, a, b, { signed }) });
-        } catch (error) {
-          if (!(error instanceof MarkingInputError)) throw error;
-        }
+        if (a < first || a > last || b < first || b > last) continue;
+        const gradient = (interpolateSorted(readings, b) - interpolateSorted(readings, a)) / (b - a);
+        slips.push({ code: "wrong-interval", value: signed ? gradient : Math.abs(gradient) });
       }
       const atReadings = x.includes(from) && x.includes(to);
       return {

@@ -3,7 +3,7 @@ import { PolynomialRegression, SimpleLinearRegression } from "ml-regression";
 import jStat from "jstat";
 import { linearFit } from "@/lib/marking/linear-fit";
 import { polynomialFit } from "@/lib/marking/polynomial-fit";
-import { logRelativeError } from "./helpers";
+import { logRelativeError } from "./log-relative-error";
 import type { NistLinearDataset } from "./fixtures";
 
 /** Coefficients (ascending powers; the slope alone through the origin) from one implementation, or null if it failed. */
