@@ -139,11 +139,10 @@ describe("roster import", () => {
 
     it("flags an address used as a student on one line and as a parent on another", () => {
       const csv = lines("name,email,parent name,parent email", "Ada Fenn,ada@test.example,Olga Olsen,olsen@test.example", "Olga Olsen,olsen@test.example,,");
-      expect(previewRoster({ actor: admin, classId, csv }).summary.withErrors).toBeGreaterThan(0);
-    });
-
-    it("still writes nothing when that mix-up is only found during the import", () => {
-      const csv = lines("name,email,parent name,parent email", "Ada Fenn,ada@test.example,Olga Olsen,olsen@test.example", "Olga Olsen,olsen@test.example,,");
+      expect(previewRoster({ actor: admin, classId, csv }).rows.map((r) => r.errors)).toEqual([
+        ["Parent e-mail: olsen@test.example is also a student's e-mail on line 3."],
+        ["E-mail: olsen@test.example is also given as a parent's e-mail on line 2."],
+      ]);
       expectRefusedImport(csv);
     });
   });
@@ -153,8 +152,9 @@ describe("roster import", () => {
       const csv =
         "\uFEFFFull name,E-mail,Year group,Parent/guardian name,Parent/guardian e-mail,Relationship,Tutor group\r\n" +
         "Ada Fenn,Ada@Test.Example,10,Olga Fenn,olga.fenn@test.example,Mother,10F\r\n" +
-        "\r\n" +
-        "Bram Olsen,bram@test.example,,,,,10F\r\n";
+        "Bram Olsen,bram@test.example,,,,,10F\r\n" +
+        ",,,,,,\r\n" +
+        "\r\n";
       const preview = previewRoster({ actor: admin, classId, csv });
       expect(preview.fileErrors).toEqual([]);
       expect(preview.ignoredColumns).toEqual(["Tutor group"]);
@@ -167,7 +167,20 @@ describe("roster import", () => {
 
     it("treats a cell holding only spaces as empty", () => {
       const csv = lines("name,email,year group,parent name,parent email", "Bram Olsen,bram@test.example, , , ");
-      expect(previewRoster({ actor: admin, classId, csv }).rows[0]!.errors).toEqual([]);
+      expect(previewRoster({ actor: admin, classId, csv }).rows[0]).toMatchObject({ errors: [], yearGroup: null, parentName: null, parentEmail: null });
+    });
+
+    // Known bug: previewRoster numbers rows as (index among parsed rows) + 2, but papaparse's
+    // skipEmptyLines drops blank rows first, so every row after a blank row (a spreadsheet's empty
+    // separator row exports as ",,,,") gets a line number one too small, and the messages that
+    // point at "line N" point at the wrong row. Fix: take each row's line from its position in the
+    // text (papaparse's step callback gives meta.cursor; count the newlines before it), or parse
+    // with skipEmptyLines: false and drop blank rows after numbering them.
+    // Turn this back into it(...) once fixed.
+    it.fails("numbers rows by their line in the file, even after a blank row", () => {
+      const csv = lines("name,email", "Ada Fenn,ada@test.example", ",", "Bram Olsen,bram@test.example", "Ada Fenn,ada@test.example");
+      const rows = previewRoster({ actor: admin, classId, csv }).rows;
+      expect(rows.map((r) => r.line)).toEqual([2, 4, 5]);
     });
   });
 
