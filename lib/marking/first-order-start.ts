@@ -30,10 +30,12 @@ export function bestAmplitudeForRate(
   k: number,
 ): { a: number; c: number; residualSumOfSquares: number } | null {
   const n = t.length;
+  const shapes = new Float64Array(n);
   let shapeSum = 0;
   let ySum = 0;
   for (let i = 0; i < n; i += 1) {
-    shapeSum += shape(kind, k, t[i]);
+    shapes[i] = shape(kind, k, t[i]);
+    shapeSum += shapes[i];
     ySum += y[i];
   }
   const shapeMean = offset ? shapeSum / n : 0;
@@ -41,7 +43,7 @@ export function bestAmplitudeForRate(
   let sff = 0;
   let sfy = 0;
   for (let i = 0; i < n; i += 1) {
-    const f = shape(kind, k, t[i]) - shapeMean;
+    const f = shapes[i] - shapeMean;
     sff += f * f;
     sfy += f * (y[i] - yMean);
   }
@@ -50,7 +52,7 @@ export function bestAmplitudeForRate(
   const c = offset ? yMean - a * shapeMean : 0;
   let residualSumOfSquares = 0;
   for (let i = 0; i < n; i += 1) {
-    const residual = y[i] - a * shape(kind, k, t[i]) - c;
+    const residual = y[i] - a * shapes[i] - c;
     residualSumOfSquares += residual * residual;
   }
   return { a, c, residualSumOfSquares };
@@ -123,7 +125,7 @@ export function firstOrderStart(
     }
   };
   consider(firstGuess);
-  const steps = 48;
+  const steps = 32;
   for (let s = 0; s <= steps; s += 1) {
     const kTimesSpan = 0.01 * (200 / 0.01) ** (s / steps);
     consider(kTimesSpan / span);

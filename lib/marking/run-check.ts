@@ -9,6 +9,7 @@ import { linearFit } from "./linear-fit";
 import { MarkingInputError } from "./marking-input-error";
 import { meanOfRepeats } from "./mean-of-repeats";
 import { meanRate } from "./mean-rate";
+import { parseUnit } from "./parse-unit";
 import { physicalConstants } from "./physical-constants";
 import { rateAt } from "./rate-at";
 import { reactionOrder } from "./reaction-order";
@@ -116,6 +117,16 @@ function resolvePolicy(definition: CheckDefinition, table: ResultsTable, default
   return policy as AnswerPolicy;
 }
 
+function sameDimensions(first: string, second: string): boolean {
+  try {
+    const a = parseUnit(first);
+    const b = parseUnit(second);
+    return a.dimensions.every((exponent, i) => exponent === b.dimensions[i]);
+  } catch {
+    return false;
+  }
+}
+
 function uniqueIntervals(intervals: readonly (readonly [number, number])[], skip: readonly [number, number]): [number, number][] {
   const seen = new Set<string>([`${skip[0]}:${skip[1]}`, `${skip[1]}:${skip[0]}`]);
   const result: [number, number][] = [];
@@ -178,14 +189,9 @@ function prepareSingle(definition: CheckDefinition, table: ResultsTable): Prepar
         try {
           const [a, b] = pairedColumns(table, [xs, ys], []);
           const other = linearFit(a, b, { throughOrigin: definition.throughOrigin === true });
-          let scale = 1;
-          if (code !== "inverted-ratio") {
-            try {
-              scale = convertUnit(1, expectedUnit({ ...definition, x: xs, y: ys }, table.columns), unit);
-            } catch {
-              scale = 1; // Different kinds of quantity: compare the numbers as the student would write them.
-            }
-          }
+          // Different kinds of quantity cannot convert: compare the numbers as the student would write them.
+          const otherUnit = code === "inverted-ratio" ? unit : expectedUnit({ ...definition, x: xs, y: ys }, table.columns);
+          const scale = code !== "inverted-ratio" && sameDimensions(otherUnit, unit) ? convertUnit(1, otherUnit, unit) : 1;
           slips.push({ code, value: other.slope * scale });
         } catch (error) {
           if (!(error instanceof MarkingInputError)) throw error;
