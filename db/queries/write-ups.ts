@@ -10,7 +10,7 @@ import { writeUpContentSchema, type GroupTables, type WriteUpContent } from "@/l
 import { rowsForCheck } from "@/lib/write-ups/rows-for-check";
 import { answerFingerprint, checkDataFingerprint, isStale } from "@/lib/write-ups/stale";
 import { getDb, type DbOrTx } from "../client";
-import { checkAttempts, classes, classStudents, groupTables, labSessions, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
+import { checkAttempts, classes, classStudents, groupTables, labSessions, marks, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
 import { recordAudit } from "./audit";
 import { teachesClass } from "./classes";
 import { labSessionState } from "./lab-sessions";
@@ -88,6 +88,11 @@ function buildView(db: DbOrTx, actor: Actor, w: WriteUp, s: LabSession, access: 
   const groupMembers = group
     ? db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, group.studentIds)).orderBy(asc(users.name)).all()
     : [];
+  // Marks and feedback: the student sees them once the work is returned; staff always.
+  const markRow = access === "staff" || released ? db.select().from(marks).where(eq(marks.writeUpId, w.id)).get() : undefined;
+  const mark = markRow
+    ? { criteria: markRow.criteria, comments: markRow.comments, feedback: markRow.feedback, total: markRow.adjustedTotal ?? markRow.total, teacherTotal: markRow.total, maxTotal: markRow.maxTotal, returnedAt: markRow.returnedAt }
+    : null;
   const state = editableState(s, now);
   const canEdit = access === "owner" && w.status === "draft" && (state === "open" || state === "late");
   return {
@@ -103,6 +108,7 @@ function buildView(db: DbOrTx, actor: Actor, w: WriteUp, s: LabSession, access: 
       studentName: student?.name ?? "",
     },
     tables,
+    mark,
     group: group ? { id: groupId!, name: group.name, revision: groupRevision ?? 0, members: groupMembers } : null,
     checks,
     practical: { id: version.practicalId, versionId: version.id, title: version.title, topic: version.topic, version: version.version, content: version.content },
@@ -138,6 +144,18 @@ export function openWriteUp({ actor, labSessionId, now = new Date() }: { actor: 
     }
     return buildView(db, actor, w, s, "owner", now);
   });
+}
+
+/**
+ * The staff-shaped view of a write-up for a reader whose permission the caller has already
+ * checked (a moderator reading sampled work). Read-only: nothing here changes the write-up.
+ */
+export function viewWriteUpAsReader({ actor, writeUpId, now = new Date() }: { actor: Actor; writeUpId: string; now?: Date }): WriteUpView {
+  const db = getDb();
+  const w = db.select().from(writeUps).where(and(eq(writeUps.id, writeUpId), eq(writeUps.schoolId, actor.schoolId))).get();
+  if (!w) throw notFound("That write-up");
+  const s = loadSession(db, actor.schoolId, w.labSessionId);
+  return { ...buildView(db, actor, w, s, "staff", now), canEdit: false, canSubmit: false, canReopen: false };
 }
 
 /** A write-up by id, for its student or their teacher (or an admin). */
