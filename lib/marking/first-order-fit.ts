@@ -88,8 +88,7 @@ export function firstOrderFit(t: readonly number[], y: readonly number[], option
     if (options.start.k <= 0) {
       throw new MarkingInputError("not-positive", functionName, "The starting rate constant k must be greater than zero.");
     }
-    const derived = firstOrderStart(t, y, kind, offset); // also validates the data
-    void derived;
+    firstOrderStart(t, y, kind, offset); // checks the readings the same way as without a start
     start = { a: options.start.a, k: options.start.k, c: offset ? (options.start.c ?? 0) : 0 };
   } else {
     start = firstOrderStart(t, y, kind, offset);

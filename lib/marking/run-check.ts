@@ -96,7 +96,8 @@ function pairedColumns(table: ResultsTable, ids: readonly ColumnId[], notes: str
     }
     columns.forEach((column, i) => kept[i].push(column[row] as number));
   });
-  if (skipped.length > 0) notes.push(`Rows ${skipped.join(", ")} have a blank cell and were left out.`);
+  if (skipped.length === 1) notes.push(`Row ${skipped[0]} has a blank cell and was left out.`);
+  if (skipped.length > 1) notes.push(`Rows ${skipped.join(", ")} have a blank cell and were left out.`);
   return kept;
 }
 
