@@ -123,15 +123,6 @@ const FIELD_NAMES: Record<string, string> = {
   from: "Start of the interval",
   to: "End of the interval",
   at: "Time of the tangent",
-  t: "Time column",
-  answerColumn: "Answer column",
-  repeats: "Repeat columns",
-  concentration: "Concentration column",
-  rate: "Rate column",
-  temperature: "Temperature column",
-  reading: "Reading column",
-  x: "x column",
-  y: "y column",
   rubric: "Rubric",
   criteria: "Criteria",
   levels: "Levels",
@@ -141,6 +132,34 @@ const FIELD_NAMES: Record<string, string> = {
   checkIds: "Linked checks",
   reagents: "Reagents",
   prep: "Prep list",
+  name: "Name",
+  concentration: "Concentration",
+  concentrationUnit: "Concentration unit",
+  amountPerGroup: "Amount per group",
+  amountUnit: "Unit of the amount",
+  notes: "Notes",
+  perGroup: "Number per group",
+  spareMarginPercent: "Spare margin",
+  technicianNotes: "Notes for the technician",
+};
+
+/** Names of a calculation check's own fields (some share a name with fields elsewhere). */
+const CHECK_FIELD_NAMES: Record<string, string> = {
+  t: "Time column",
+  answerColumn: "Answer column",
+  repeats: "Repeat columns",
+  concentration: "Concentration column",
+  rate: "Rate column",
+  temperature: "Temperature column",
+  temperatureUnit: "Temperature unit",
+  rateIs: "What the rate column holds",
+  reading: "Reading column",
+  readingsPerValue: "Readings for each value",
+  resolution: "Instrument resolution",
+  model: "Curve used",
+  throughOrigin: "Through the origin",
+  x: "x column",
+  y: "y column",
 };
 
 /**
@@ -166,6 +185,11 @@ export function describeErrorPath(path: string, draft: Draft): string {
         const chk = c.checks[index];
         out.push(label("Check", index, chk ? chk.label || CHECK_KIND_LABELS[chk.kind] : undefined));
       }
+      i++;
+      continue;
+    }
+    if (key === "reagents" && index !== null) {
+      out.push(label("Reagent", index, c.prep.reagents[index]?.name));
       i++;
       continue;
     }
@@ -196,8 +220,8 @@ export function describeErrorPath(path: string, draft: Draft): string {
       continue;
     }
     if (i === 0 && (key === "safety" || key === "variables")) continue;
-    if (i === 0 && key === "rubric" && rest.length > 1) continue;
-    out.push(FIELD_NAMES[key] ?? key);
+    if (i === 0 && (key === "rubric" || key === "prep") && rest.length > 1) continue;
+    out.push((section === "checks" ? CHECK_FIELD_NAMES[key] : undefined) ?? FIELD_NAMES[key] ?? key);
   }
   const unique = out.filter((p, i) => p !== out[i - 1]);
   return unique.join(" › ");

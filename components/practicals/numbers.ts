@@ -4,15 +4,24 @@
  * typed stays on screen until it is corrected.
  */
 export function parseTypedNumber(text: string): number | null {
-  const t = text
-    .trim()
-    .replace(/[\u2212\u2012\u2013]/g, "-")
-    .replace(/\s+/g, "")
-    .replace(/[×x]10\^?(-?\d+)$/i, "e$1");
+  const t = normaliseNumberText(text);
   if (t === "") return null;
   if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(t)) return Number.NaN;
   const n = Number(t);
   return Number.isFinite(n) ? n : Number.NaN;
+}
+
+/**
+ * A typed number in the plain form every reader accepts, keeping its digits (so significant
+ * figures and decimal places survive): typographic minus signs become "-", spaces go, and
+ * "2.5×10^-3" becomes "2.5e-3".
+ */
+export function normaliseNumberText(text: string): string {
+  return text
+    .trim()
+    .replace(/[\u2212\u2012\u2013]/g, "-")
+    .replace(/\s+/g, "")
+    .replace(/[×x]10\^?(-?\d+)$/i, "e$1");
 }
 
 /** Whether a typed text already stands for this value (so the field need not be rewritten). */

@@ -1,6 +1,6 @@
 import type { TableRows } from "@/lib/checks/types";
 import type { ColumnTemplate } from "@/lib/validation/practicals";
-import { parseTypedNumber } from "./numbers";
+import { normaliseNumberText, parseTypedNumber } from "./numbers";
 
 /** The text of a sample-data grid: one array of cell texts per row, one cell per column. */
 export type GridText = string[][];
@@ -104,20 +104,21 @@ export function pasteIntoGrid(grid: GridText, text: string, at: { row: number; c
 export type CellProblem = { row: number; col: number; text: string; message: string };
 
 /**
- * The grid as readings keyed by column id (blank cells are null), plus every cell that is not a
- * number. Rows that are entirely blank at the end are left out.
+ * The grid as readings keyed by column id, plus every cell that is not a number. Readings stay
+ * as typed text (so "0.50" keeps its decimal places for the significant-figure rules); blank and
+ * unreadable cells are null. Rows that are entirely blank at the end are left out.
  */
 export function gridToRows(grid: GridText, columns: Pick<ColumnTemplate, "id" | "quantity" | "unit">[]): { rows: TableRows; problems: CellProblem[] } {
   const problems: CellProblem[] = [];
   const rows: TableRows = grid.map((cells, r) => {
-    const row: Record<string, number | null> = {};
+    const row: Record<string, string | null> = {};
     columns.forEach((col, c) => {
       const text = cells[c] ?? "";
       const value = parseTypedNumber(text);
       if (value !== null && Number.isNaN(value)) {
         problems.push({ row: r, col: c, text, message: `Row ${r + 1}, ${col.quantity || "column " + (c + 1)}: “${text}” is not a number.` });
         row[col.id] = null;
-      } else row[col.id] = value;
+      } else row[col.id] = value === null ? null : normaliseNumberText(text);
     });
     return row;
   });

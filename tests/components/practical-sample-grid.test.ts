@@ -72,24 +72,24 @@ describe("pasteIntoGrid", () => {
 });
 
 describe("gridToRows", () => {
-  it("turns cells into numbers keyed by column id, blanks into null", () => {
+  it("keys readings by column id, keeping the digits as typed, blanks as null", () => {
     const { rows, problems } = gridToRows(
       [
         ["0", "0", ""],
-        ["10", "\u221212.5", "1.2e-2"],
+        ["10", "\u221212.50", " 2.5×10^-3 "],
       ],
       columns,
     );
     expect(problems).toEqual([]);
     expect(rows).toEqual([
-      { t: 0, v: 0, m: null },
-      { t: 10, v: -12.5, m: 0.012 },
+      { t: "0", v: "0", m: null },
+      { t: "10", v: "-12.50", m: "2.5e-3" },
     ]);
   });
 
   it("names every cell that is not a number", () => {
     const { rows, problems } = gridToRows([["0", "12 cm3", ""]], columns);
-    expect(rows[0]).toEqual({ t: 0, v: null, m: null });
+    expect(rows[0]).toEqual({ t: "0", v: null, m: null });
     expect(problems).toEqual([{ row: 0, col: 1, text: "12 cm3", message: "Row 1, volume of gas: “12 cm3” is not a number." }]);
   });
 
