@@ -204,7 +204,7 @@ function throughput(): void {
     }
   };
   // Warm up the JIT on separate write-ups so the timings are for steady running.
-  markAll(Array.from({ length: 300 }, () => generateWriteUp(random)));
+  markAll(Array.from({ length: 1500 }, () => generateWriteUp(random)));
 
   // Twenty different classes, so no class is marked twice (remembered fits would flatter it).
   const classes = Array.from({ length: 20 }, () => Array.from({ length: 30 }, () => generateWriteUp(random)));

@@ -99,12 +99,17 @@ export function firstOrderFit(t: readonly number[], y: readonly number[], option
     const c = offset ? p[2] : 0;
     return t.map((time) => curve(kind, p[0], k, c, time));
   };
+  // The rows are reused from call to call: the fitter reads them before asking again.
+  const jacobianRows = t.map(() => new Array<number>(offset ? 3 : 2).fill(1));
   const jacobian = (p: readonly number[]): number[][] => {
     const k = Math.exp(p[1]);
-    return t.map((time) => {
-      const [da, dk] = partials(kind, p[0], k, time);
-      return offset ? [da, dk * k, 1] : [da, dk * k];
-    });
+    for (let i = 0; i < n; i += 1) {
+      const e = Math.exp(-k * t[i]);
+      const row = jacobianRows[i];
+      row[0] = kind === "rise" ? 1 - e : e;
+      row[1] = (kind === "rise" ? p[0] * t[i] * e : -p[0] * t[i] * e) * k;
+    }
+    return jacobianRows;
   };
   const initial = offset ? [start.a, Math.log(start.k), start.c] : [start.a, Math.log(start.k)];
   const solved = levenbergMarquardt(y, { values, jacobian }, initial, { maxIterations: options.maxIterations });

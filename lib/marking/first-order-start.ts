@@ -29,8 +29,18 @@ export function bestAmplitudeForRate(
   y: readonly number[],
   k: number,
 ): { a: number; c: number; residualSumOfSquares: number } | null {
+  return project(kind, offset, t, y, k) ? { a: projectedA, c: projectedC, residualSumOfSquares: projectedSS } : null;
+}
+
+// Result registers and scratch space for the scan, so trying many k values allocates nothing.
+let projectedA = 0;
+let projectedC = 0;
+let projectedSS = 0;
+let shapes = new Float64Array(16);
+
+function project(kind: FirstOrderKind, offset: boolean, t: readonly number[], y: readonly number[], k: number): boolean {
   const n = t.length;
-  const shapes = new Float64Array(n);
+  if (shapes.length < n) shapes = new Float64Array(n);
   let shapeSum = 0;
   let ySum = 0;
   for (let i = 0; i < n; i += 1) {
@@ -47,7 +57,7 @@ export function bestAmplitudeForRate(
     sff += f * f;
     sfy += f * (y[i] - yMean);
   }
-  if (!(sff > 0) || !Number.isFinite(sfy)) return null;
+  if (!(sff > 0) || !Number.isFinite(sfy)) return false;
   const a = sfy / sff;
   const c = offset ? yMean - a * shapeMean : 0;
   let residualSumOfSquares = 0;
@@ -55,7 +65,10 @@ export function bestAmplitudeForRate(
     const residual = y[i] - a * shapes[i] - c;
     residualSumOfSquares += residual * residual;
   }
-  return { a, c, residualSumOfSquares };
+  projectedA = a;
+  projectedC = c;
+  projectedSS = residualSumOfSquares;
+  return true;
 }
 
 /**
@@ -117,11 +130,16 @@ export function firstOrderStart(
     }
   }
   const firstGuess = Math.LN2 / Math.max(halfTime, span * 1e-3);
-  let best: { k: number; a: number; c: number; residualSumOfSquares: number } | null = null;
+  let bestK = 0;
+  let bestA = 0;
+  let bestC = 0;
+  let bestSS = Infinity;
   const consider = (k: number): void => {
-    const candidate = bestAmplitudeForRate(kind, offset, t, y, k);
-    if (candidate && (best === null || candidate.residualSumOfSquares < best.residualSumOfSquares)) {
-      best = { k, ...candidate };
+    if (project(kind, offset, t, y, k) && projectedSS < bestSS) {
+      bestK = k;
+      bestA = projectedA;
+      bestC = projectedC;
+      bestSS = projectedSS;
     }
   };
   consider(firstGuess);
@@ -130,9 +148,8 @@ export function firstOrderStart(
     const kTimesSpan = 0.01 * (200 / 0.01) ** (s / steps);
     consider(kTimesSpan / span);
   }
-  if (best === null) {
+  if (bestSS === Infinity) {
     throw new MarkingInputError("not-converged", functionName, "No first-order curve could be started from these readings.");
   }
-  const chosen: { k: number; a: number; c: number } = best;
-  return { a: chosen.a, k: chosen.k, c: chosen.c };
+  return { a: bestA, k: bestK, c: bestC };
 }

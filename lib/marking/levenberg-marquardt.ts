@@ -4,7 +4,10 @@ import { MarkingInputError } from "./marking-input-error";
 export interface NonlinearModel {
   /** Model value at each data point, for the given parameters. */
   readonly values: (parameters: readonly number[]) => number[];
-  /** Jacobian: one row per data point, one column per parameter (d value / d parameter). */
+  /**
+   * Jacobian: one row per data point, one column per parameter (d value / d parameter). The
+   * fitter reads the rows before its next call, so a model may reuse the same arrays.
+   */
   readonly jacobian: (parameters: readonly number[]) => number[][];
 }
 
