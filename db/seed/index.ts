@@ -1,9 +1,12 @@
 import { eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import type { Db } from "../client";
-import { auditLog, checkAttempts, classes, classStudents, classTeachers, invitations, labSessions, parentLinks, practicals, practicalVersions, rubrics, schools, userRoles, users, writeUps } from "../schema";
+import { auditLog, checkAttempts, classes, classStudents, classTeachers, invitations, labSessions, marks, moderationItems, moderationMarks, moderationSamples, parentLinks, practicals, practicalVersions, rubrics, schools, userRoles, users, writeUps } from "../schema";
 import { DEMO_PRACTICALS } from "./practicals";
+import { seedMarkFor } from "./marks";
 import { writeUpFor, type Scenario } from "./write-ups";
+import { drawModerationSample, defaultSampleRule } from "@/lib/marking";
+import { rubricMaxOf } from "./rubric-max";
 import { hashToken, newToken } from "@/lib/tokens";
 import { ACADEMIC_YEAR, CLASSES, DEMO_DOMAIN, DEMO_PASSWORD, DEMO_SCHOOL, PARENTS, STAFF, demoStudents, type DemoPerson } from "./people";
 
@@ -126,9 +129,12 @@ export async function seedDemoSchool(db: Db, { now = new Date() }: { now?: Date 
     schedule("12A-thio", "thiosulfate", "12A", "hod", -2, 7);
     schedule("10C-peroxide", "peroxide", "10C", "teacher", 5, 7);
     schedule("11P-resistance", "resistance", "11P", "physics", -1, 7);
+    schedule("10C-chips", "chips", "10C", "teacher", -35, 7);
+    schedule("12A-peroxide", "peroxide", "12A", "hod", -28, 7);
 
     // Write-ups with generated readings and a few deliberate slips.
     const practicalByKey = new Map(DEMO_PRACTICALS.map((dp) => [dp.key, dp]));
+    const submitted: { sessionKey: string; writeUpId: string; index: number; checkResults: ReturnType<typeof writeUpFor>["checkResults"]; submittedAt: Date }[] = [];
     const fillSession = (sessionKey: string, practicalKey: string, classKey: string, scenarioFor: (i: number, personKey: string) => Scenario, opensAt: Date, dueAt: Date) => {
       const dp = practicalByKey.get(practicalKey)!;
       students
@@ -160,6 +166,7 @@ export async function seedDemoSchool(db: Db, { now = new Date() }: { now?: Date 
             .returning({ id: writeUps.id })
             .get().id;
           for (const a of generated.attempts) tx.insert(checkAttempts).values({ schoolId, writeUpId, studentId, ...a, at: submittedAt ?? started }).run();
+          if (submittedAt) submitted.push({ sessionKey, writeUpId, index: i, checkResults: generated.checkResults, submittedAt });
         });
     };
     const sessionDates = (key: string) => tx.select({ opensAt: labSessions.opensAt, dueAt: labSessions.dueAt }).from(labSessions).where(eq(labSessions.id, labSessionIds.get(key)!)).get()!;
@@ -169,6 +176,55 @@ export async function seedDemoSchool(db: Db, { now = new Date() }: { now?: Date 
     fillSession("10C-mg", "mg-acid", "10C", (i, key) => (key === "student" || i % 2 === 1 ? "draft" : "not-started"), d10C.opensAt, d10C.dueAt);
     const d12A = sessionDates("12A-thio");
     fillSession("12A-thio", "thiosulfate", "12A", (i, key) => (key === "sibling" || i % 3 !== 2 ? "draft" : "not-started"), d12A.opensAt, d12A.dueAt);
+
+    const d10Cc = sessionDates("10C-chips");
+    fillSession("10C-chips", "chips", "10C", (i) => (i === 9 ? "not-started" : i % 8 === 4 ? "late" : "submitted"), d10Cc.opensAt, d10Cc.dueAt);
+    const d12Ap = sessionDates("12A-peroxide");
+    fillSession("12A-peroxide", "peroxide", "12A", (i) => (i === 6 ? "not-started" : "submitted"), d12Ap.opensAt, d12Ap.dueAt);
+
+    // Marking: the two earlier lab sessions are marked and returned; 10D's is marked (generously)
+    // and mostly returned, with a moderation sample part-way through second marking.
+    const markers: Record<string, { marker: string; practical: string; returnAll: boolean; generous: boolean }> = {
+      "10C-chips": { marker: "teacher", practical: "chips", returnAll: true, generous: false },
+      "12A-peroxide": { marker: "hod", practical: "peroxide", returnAll: true, generous: false },
+      "10D-mg": { marker: "hod", practical: "mg-acid", returnAll: false, generous: true },
+    };
+    const cohort10D: { id: string; total: number; markerId: string; criteria: Record<string, { levelId: string; marks: number }> }[] = [];
+    for (const item of submitted) {
+      const plan = markers[item.sessionKey];
+      if (!plan) continue;
+      const content = practicalByKey.get(plan.practical)!.content;
+      const m = seedMarkFor(content, item.checkResults, item.index, plan.generous);
+      const markedAt = new Date(item.submittedAt.getTime() + 2 * day);
+      const returned = plan.returnAll || item.index % 4 !== 0;
+      tx.insert(marks)
+        .values({ schoolId, writeUpId: item.writeUpId, markerId: userIds.get(plan.marker)!, criteria: m.criteria, comments: m.comments, feedback: m.feedback, total: m.total, maxTotal: rubricMaxOf(content), revision: 1, markedAt, returnedAt: returned ? markedAt : null, createdAt: markedAt, updatedAt: markedAt })
+        .run();
+      tx.update(writeUps).set({ status: returned ? "returned" : "marked" }).where(eq(writeUps.id, item.writeUpId)).run();
+      if (item.sessionKey === "10D-mg") cohort10D.push({ id: item.writeUpId, total: m.total, markerId: userIds.get(plan.marker)!, criteria: m.criteria });
+    }
+    const seed = 20261201;
+    const draw = drawModerationSample(cohort10D, defaultSampleRule, seed);
+    const sampleId = tx
+      .insert(moderationSamples)
+      .values({ schoolId, labSessionId: labSessionIds.get("10D-mg")!, moderatorId: userIds.get("moderator")!, rule: defaultSampleRule, seed, blind: true, toleranceMarks: 1, drawnById: userIds.get("admin")!, createdAt: new Date(now.getTime() - 2 * day) })
+      .returning({ id: moderationSamples.id })
+      .get().id;
+    const mgRubric = practicalByKey.get("mg-acid")!.content.rubric!;
+    draw.ids.forEach((id, i) => {
+      tx.insert(moderationItems).values({ sampleId, writeUpId: id, origin: "drawn", note: draw.reasons[id] ?? "" }).run();
+      if (i >= 2) return;
+      // The moderator has second-marked two pieces: one level lower where the teacher was generous.
+      const teacher = cohort10D.find((c) => c.id === id)!;
+      const criteria = Object.fromEntries(
+        mgRubric.criteria.map((c) => {
+          const t = c.levels.findIndex((l) => l.id === teacher.criteria[c.id]!.levelId);
+          const lvl = c.levels[Math.max(0, c.id === "analyse" || c.id === "process" ? t - 1 : t)]!;
+          return [c.id, { levelId: lvl.id, marks: lvl.marks }];
+        }),
+      );
+      tx.insert(moderationMarks).values({ sampleId, writeUpId: id, moderatorId: userIds.get("moderator")!, criteria, total: Object.values(criteria).reduce((s, c) => s + c.marks, 0), comment: "Processing is not quite at this level: the units slip.", revision: 1, completedAt: now }).run();
+    });
 
     tx.insert(auditLog).values({ schoolId, actorId: null, action: "school.seed", entityType: "school", entityId: schoolId, after: { people: userIds.size, classes: classIds.size, domain: DEMO_DOMAIN }, at: now }).run();
     return { schoolId, userIds, classIds, practicalVersionIds, labSessionIds };

@@ -69,6 +69,26 @@ export function writeUpFor(practicalKey: string, practical: PracticalContent, in
     graphs.vt = { tangent };
     answers.rate20 = { value: drawnSlope.toPrecision(2), unit: "cm³/s", working: null, tangent: { x1: tangent.x1, y1: tangent.y1, x2: tangent.x2, y2: tangent.y2 } };
     if (filled === 13) answers.initial = { value: (vmax * k * (1 + gaussian(rand) * 0.1)).toPrecision(2), unit: "cm³ s⁻¹", working: null };
+  } else if (practicalKey === "chips") {
+    const times = Array.from({ length: 11 }, (_, i) => i * 30);
+    const total = 2.1 + rand() * 0.3;
+    const chips = times.map((t) => Math.max(0, total * (1 - Math.exp(-0.004 * t)) + (t ? gaussian(rand) * 0.01 : 0)));
+    const powder = times.map((t) => Math.max(0, total * (1 - Math.exp(-0.02 * t)) + (t ? gaussian(rand) * 0.01 : 0)));
+    tables = { mass: { rows: times.map((t, i) => ({ t: String(t), mc: chips[i]!.toFixed(2), mp: powder[i]!.toFixed(2) })), decisions: {} } };
+    const mp = Number(powder[4]!.toFixed(2)) / 120;
+    const mc = Number(chips[4]!.toFixed(2)) / 120;
+    answers.mean02 = { value: (slip === "minutes" ? mp * 60 : mp).toPrecision(2), unit: "g/s", working: null };
+    answers.mean02c = { value: (slip === "inverted" ? 1 / mc : mc).toPrecision(2), unit: "g/s", working: null };
+  } else if (practicalKey === "peroxide") {
+    const times = Array.from({ length: 10 }, (_, i) => i * 20);
+    const vmax = 55 + rand() * 15;
+    const k = 0.015 + rand() * 0.01;
+    const slow = 0.04 + rand() * 0.02;
+    const vc = times.map((t) => Math.max(0, Math.round(vmax * (1 - Math.exp(-k * t)) + (t ? gaussian(rand) * 0.8 : 0))));
+    const vn = times.map((t) => Math.max(0, Math.round(slow * t + (t ? gaussian(rand) * 0.5 : 0))));
+    tables = { o2: { rows: times.map((t, i) => ({ t: String(t), vn: String(vn[i]), vc: String(vc[i]) })), decisions: {} } };
+    answers.initcat = { value: (vmax * k * (1 + gaussian(rand) * 0.08)).toPrecision(2), unit: "cm³/s", working: null };
+    answers.gradnone = { value: (slip === "inverted" ? 1 / slow : slow * (1 + gaussian(rand) * 0.05)).toPrecision(2), unit: "cm³/s", working: null };
   } else if (practicalKey === "thiosulfate") {
     const temps = [20, 30, 40, 50, 60];
     const runs = clockTimes(rand, temps);

@@ -5,7 +5,7 @@ import { loadActor } from "@/db/queries/users";
 import { hasAnySchool, seedDemoSchool } from "@/db/seed/index";
 import { publishProblems } from "@/lib/validation/practicals";
 import { DEMO_PRACTICALS } from "@/db/seed/practicals";
-import { checkAttempts } from "@/db/schema";
+import { checkAttempts, moderationMarks, writeUps } from "@/db/schema";
 import { freshDatabase } from "../helpers/db";
 
 describe("the demo school", () => {
@@ -21,11 +21,16 @@ describe("the demo school", () => {
     for (const dp of DEMO_PRACTICALS) expect(publishProblems({ title: dp.title }, dp.content)).toEqual({});
     const student = loadActor(res.userIds.get("student")!)!;
     const states = listLabSessions({ actor: student, now }).map((s) => s.state).sort();
-    expect(states).toEqual(["open", "upcoming"]);
+    expect(states).toEqual(["closed", "open", "upcoming"]);
     // Generated data with deliberate slips: every verdict, and named slips, appear in the demo.
     const attempts = db.select().from(checkAttempts).all();
     expect(new Set(attempts.map((a) => a.verdict))).toEqual(new Set(["agrees", "close", "disagrees", "cannot-check"]));
     expect(attempts.some((a) => a.slipCode === "minutes-for-seconds")).toBe(true);
     expect(attempts.some((a) => a.slipCode === "tangent-not-touching")).toBe(true);
+    // Marked and returned work exists for the demo student (so the parent has something to see),
+    // and the moderation sample is part-way through second marking.
+    const own = db.select().from(writeUps).all().filter((w) => w.studentId === res.userIds.get("student"));
+    expect(own.map((w) => w.status).sort()).toEqual(["draft", "returned"]);
+    expect(db.select().from(moderationMarks).all()).toHaveLength(2);
   });
 });
