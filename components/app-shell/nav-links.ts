@@ -8,6 +8,8 @@ export const NAV_LINKS: NavLink[] = [
   { href: "/classes", label: "Classes", roles: ["teacher", "student"] },
   { href: "/practicals", label: "Practicals", roles: ["teacher", "admin", "moderator"] },
   { href: "/lab-sessions", label: "Lab sessions", roles: ["teacher", "student", "admin"] },
+  { href: "/marking", label: "Marking", roles: ["teacher"] },
+  { href: "/moderation", label: "Moderation", roles: ["moderator", "admin"] },
   { href: "/rubrics", label: "Rubrics", roles: ["teacher"] },
   { href: "/tools", label: "Calculators", roles: ["teacher"] },
   { href: "/admin/people", label: "People", roles: ["admin"] },
