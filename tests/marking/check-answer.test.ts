@@ -103,6 +103,7 @@ describe("checkAnswer names the likely slip (worked examples; slips listed in DO
     ["inverted ratio (time over volume)", rate, { value: "2.0", unit: "cm3/s" }, "inverted-ratio"],
     ["lost minus sign on a falling line", { value: -0.024, unit: "g/s" }, { value: "0.024", unit: "g/s" }, "lost-minus-sign"],
     ["negative rate", rate, { value: "-0.50", unit: "cm3/s" }, "negative-rate"],
+    ["wrong sign on a rising line's gradient", { value: 0.024, unit: "g/s" }, { value: "-0.024", unit: "g/s" }, "wrong-sign"],
     ["a fraction for a percentage", { value: 4, unit: "%" }, { value: "0.04", unit: "%" }, "percentage-as-fraction"],
     ["a power of ten", { value: 3.4, unit: "s-1" }, { value: "0.34", unit: "s-1" }, "power-of-ten"],
   ];

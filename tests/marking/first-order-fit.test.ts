@@ -57,6 +57,14 @@ describe("firstOrderFit on exact and generated data", () => {
     expectClose(start.k, 0.4, { rel: 0.25 });
   });
 
+  it("reports non-convergence when the iteration limit is reached", () => {
+    const data = loadNistNonlinear("Misra1a");
+    expectMarkingError(
+      () => firstOrderFit(data.x, data.y, { kind: "rise", offset: false, start: { a: 500, k: 1e-4 }, maxIterations: 2 }),
+      "not-converged",
+    );
+  });
+
   it("reports non-convergence for readings on a straight line rather than a made-up curve", () => {
     const t = [0, 10, 20, 30, 40, 50];
     expectMarkingError(() => firstOrderFit(t, t.map((s) => 2 * s + 1), { kind: "rise" }), "not-converged");

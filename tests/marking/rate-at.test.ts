@@ -44,6 +44,13 @@ describe("rateAt: derivative of a fitted curve, with its uncertainty", () => {
     expect(rateAt(t, decay, 30, { signed: true }).rate).toBeLessThan(0);
   });
 
+  it("gives the same answer however often it is asked, and for shuffled readings (fits are remembered by their data)", () => {
+    const first = rateAt(t, rise, 33);
+    expect(rateAt(t, rise, 33)).toEqual(first);
+    const order = [3, 0, 9, 5, 1, 7, 2, 8, 4, 6];
+    expectClose(rateAt(order.map((i) => t[i]), order.map((i) => rise[i]), 33).rate, first.rate, { rel: 1e-12 });
+  });
+
   it("warns about a tangent at the last reading", () => {
     expect(rateAt(t, rise, 120).caution).toContain("last reading");
   });
