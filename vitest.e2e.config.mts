@@ -11,8 +11,9 @@ export default defineConfig({
     environment: "node",
     globalSetup: ["tests/e2e/support/global-setup.ts"],
     fileParallelism: false,
-    testTimeout: 60_000,
-    hookTimeout: 60_000,
+    // Generous: each test signs in through the real form, and a busy 2-core machine is slow.
+    testTimeout: 120_000,
+    hookTimeout: 120_000,
     teardownTimeout: 30_000,
     // Chromium and playwright write their profiles, caches and temp files inside the project.
     env: {

@@ -85,8 +85,8 @@ describe("each demo role signs in to its own home page", () => {
 });
 
 describe("signing in and out", () => {
-  it("keeps a wrong password on the sign-in page with a plain message", async () => {
-    for (const viewport of ["desktop", "phone"] as const) {
+  for (const viewport of ["desktop", "phone"] as const) {
+    it(`keeps a wrong password on the sign-in page with a plain message (${viewport})`, async () => {
       const context = await newWindow(browser, viewport);
       const page = await context.newPage();
       const signIn = new SignInPage(page);
@@ -97,8 +97,8 @@ describe("signing in and out", () => {
       expect(await signIn.password.inputValue()).toBe("not-the-demo-password");
       await screenshot(page, "sign-in-wrong-password");
       await context.close();
-    }
-  });
+    });
+  }
 
   it("asks for both fields before sending anything", async () => {
     const context = await newWindow(browser);
@@ -125,33 +125,34 @@ describe("signing in and out", () => {
     await context.close();
   });
 
-  it("shows the 403 page for another class's page and for pages a role does not use", async () => {
-    const student = await signedIn("student");
-    const other = classIdByName("10D Chemistry");
-    expect((await student.page.goto(`/classes/${other}`))?.status()).toBe(403);
-    expect((await student.page.goto(`/classes/${classIdByName("10C Chemistry")}`))?.status()).toBe(200);
-    await student.context.close();
-
-    const parent = await signedIn("parent");
-    expect((await parent.page.goto("/classes"))?.status()).toBe(403);
-    expect(await parent.page.getByRole("heading", { level: 1 }).textContent()).toBe("This page is not for your role");
-    await parent.context.close();
+  it("shows a student the 403 page for another class's page, and their own class", async () => {
+    const { context, page } = await signedIn("student");
+    expect((await page.goto(`/classes/${classIdByName("10D Chemistry")}`))?.status()).toBe(403);
+    expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe("This page is not for your role");
+    expect((await page.goto(`/classes/${classIdByName("10C Chemistry")}`))?.status()).toBe(200);
+    await context.close();
   });
 
-  it("signs out from the header (desktop) and the menu (phone), ending the session", async () => {
-    for (const viewport of ["desktop", "phone"] as const) {
+  it("shows a parent the 403 page for the class list, which parents do not use", async () => {
+    const { context, page } = await signedIn("parent");
+    expect((await page.goto("/classes"))?.status()).toBe(403);
+    expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe("This page is not for your role");
+    await context.close();
+  });
+
+  for (const viewport of ["desktop", "phone"] as const) {
+    it(`signs out from the ${viewport === "phone" ? "menu" : "header"}, ending the session (${viewport})`, async () => {
       const { context, page, shell, errors } = await signedIn("teacher", viewport);
       await shell.signOut();
       await expect.poll(() => new SignInPage(page).notice.textContent()).toBe("You have signed out.");
       expect(new URL(page.url()).searchParams.get("signedOut")).toBe("1");
       await page.goto("/classes");
       expect(new URL(page.url()).pathname).toBe("/sign-in");
-      const res = await page.request.get("/api/me");
-      expect(res.status()).toBe(401);
+      expect((await page.request.get("/api/me")).status()).toBe(401);
       expectNoErrors(errors);
       await context.close();
-    }
-  });
+    });
+  }
 
   it("refuses the API to a signed-out visitor and accepts the demo password only for real accounts", async () => {
     const context = await newWindow(browser);
