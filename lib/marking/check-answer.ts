@@ -9,13 +9,25 @@ import { tangentTouchesCurve, type CurvePoint, type TangentLine, type TangentTou
 /** Our verdict words. */
 export type Verdict = "agrees" | "close" | "disagrees" | "cannot-check";
 
-/** The list of verdicts, for the app's schemas. */
+/**
+ * The list of verdicts, for the app's schemas (for example a zod enum).
+ *
+ * @example
+ * verdicts; // => ["agrees", "close", "disagrees", "cannot-check"]
+ */
 export const verdicts: readonly Verdict[] = ["agrees", "close", "disagrees", "cannot-check"];
 
 /** How the expected value was obtained; it sets the default tolerance. */
 export type ExpectedMethod = "fitted" | "tangent" | "calculated";
 
-/** Default tolerance, in percent, for each method (teacher can override). */
+/**
+ * Default tolerance, in percent, for each way of getting the expected value (common practice;
+ * the teacher can override it): fitted gradients 10 %, hand-drawn tangents 15 %, arithmetic on
+ * the readings 2 % (plus the rounding of the typed number).
+ *
+ * @example
+ * defaultTolerancePercent.tangent; // => 15
+ */
 export const defaultTolerancePercent: Readonly<Record<ExpectedMethod, number>> = {
   fitted: 10,
   tangent: 15,

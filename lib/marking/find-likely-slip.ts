@@ -18,6 +18,15 @@ export interface LikelySlip {
  * a negative rate when `isRate`, or a wrong sign otherwise), inverted ratio,
  * minutes for seconds (when the unit involves time), cm³ for dm³ (volume), J for kJ (energy),
  * a fraction for a percentage, and finally any power of ten from 10^-3 to 10^3.
+ *
+ * @param expectedValue - the value worked out from the student's data
+ * @param expectedUnit - its unit ("" for none); decides which unit slips are possible
+ * @param signMatters - false leaves out the sign slips
+ * @param isRate - true when a positive rate is expected (changes which sign slip is named)
+ * @returns slip values in the expected unit, most specific first (none when the value is 0)
+ * @example
+ * unitSlipCandidates(0.5, "cm3/s", true, true).find((slip) => slip.code === "minutes-for-seconds")?.value;
+ * // => 30
  */
 export function unitSlipCandidates(
   expectedValue: number,

@@ -16,28 +16,18 @@ function shape(kind: FirstOrderKind, k: number, t: number): number {
   return kind === "rise" ? 1 - Math.exp(-k * t) : Math.exp(-k * t);
 }
 
-/**
- * For a fixed rate constant k the model is linear in a and c, so the best a and c follow in
- * closed form (variable projection): a = S_fy / S_ff and c = mean(y) - a mean(f) with f the
- * curve shape at each time, or a = sum(f y) / sum(f^2) without an offset. Returns the residual
- * sum of squares, a and c, or null when the shape does not vary (k too small to show).
- */
-export function bestAmplitudeForRate(
-  kind: FirstOrderKind,
-  offset: boolean,
-  t: readonly number[],
-  y: readonly number[],
-  k: number,
-): { a: number; c: number; residualSumOfSquares: number } | null {
-  return project(kind, offset, t, y, k) ? { a: projectedA, c: projectedC, residualSumOfSquares: projectedSS } : null;
-}
-
 // Result registers and scratch space for the scan, so trying many k values allocates nothing.
 let projectedA = 0;
 let projectedC = 0;
 let projectedSS = 0;
 let shapes = new Float64Array(16);
 
+/**
+ * For a fixed rate constant k the model is linear in a and c, so the best a and c follow in
+ * closed form (variable projection): a = S_fy / S_ff and c = mean(y) - a mean(f), with f the
+ * curve shape at each time, or a = sum(f y) / sum(f^2) without an offset. The results go to the
+ * registers below (the residual sum of squares too); false when the shape does not vary.
+ */
 function project(kind: FirstOrderKind, offset: boolean, t: readonly number[], y: readonly number[], k: number): boolean {
   const n = t.length;
   if (shapes.length < n) shapes = new Float64Array(n);

@@ -1,7 +1,12 @@
 import { MarkingInputError } from "./marking-input-error";
 import { polynomialLeastSquares } from "./internal/polynomial-least-squares";
 
-/** The highest polynomial degree {@link polynomialFit} accepts. */
+/**
+ * The highest polynomial degree {@link polynomialFit} accepts.
+ *
+ * @example
+ * maximumPolynomialDegree; // => 10
+ */
 export const maximumPolynomialDegree = 10;
 
 /** Result of {@link polynomialFit}. */

@@ -1,6 +1,10 @@
 /**
  * Machine codes for the common slips the engine recognises, each with the plain sentence shown to
- * the student. The sentences never contain the expected number.
+ * the student (a 14-year-old should understand it). The sentences never contain the expected
+ * number, so they are safe to show before the teacher reveals the answer.
+ *
+ * @example
+ * slipMessages["celsius-for-kelvin"]; // => "It looks as if you used temperatures in °C. ..."
  */
 export const slipMessages = {
   "celsius-for-kelvin":
@@ -33,5 +37,10 @@ export const slipMessages = {
 /** A common slip, by machine code. */
 export type SlipCode = keyof typeof slipMessages;
 
-/** The list of slip codes, for the app's schemas. */
+/**
+ * The list of slip codes, for the app's schemas (for example a zod enum).
+ *
+ * @example
+ * slipCodes.includes("wrong-interval"); // => true
+ */
 export const slipCodes = Object.keys(slipMessages) as SlipCode[];
