@@ -32,8 +32,9 @@ function accuracyTable(): void {
     "jstat models.ols",
   ];
   console.log("Accuracy on NIST StRD linear datasets: minimum LRE over the coefficients (digits; 15 = exact to double precision)");
-  console.log(`${pad("dataset", 10)}${pad("difficulty", 11)}${implementations.map((name) => pad(name, 12).slice(0, 12)).join(" ")}  ours: std errors, residual SD`);
-  console.log(`${" ".repeat(21)}${["ours", "simple-stats", "ml SLR", "ml Poly", "jstat ols"].map((name) => pad(name, 12)).join(" ")}`);
+  console.log("Columns: our engine; simple-statistics linearRegression; ml-regression SimpleLinearRegression and PolynomialRegression;");
+  console.log("jstat models.ols; then our standard errors (minimum) and residual SD. '-' means the package has no such model.");
+  console.log(`${pad("dataset", 10)}${pad("difficulty", 11)}${["ours", "simple-stats", "ml SLR", "ml Poly", "jstat ols"].map((name) => pad(name, 12)).join(" ")}  ours: std errors, residual SD`);
   for (const name of nistLinearNames) {
     const data = loadNistLinear(name);
     const row: (number | null)[] = [minimumCoefficientLre(ourFit(data), data.certified.estimates)];
