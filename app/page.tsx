@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { AdminSection, ClassCards } from "@/components/home/home-sections";
+import { StudentLabSessions, TeacherLabSessions } from "@/components/home/lab-session-sections";
 import { buttonClasses } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -8,6 +9,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { listClasses } from "@/db/queries/classes";
 import { listChildren } from "@/db/queries/family";
 import { adminOverview } from "@/db/queries/home";
+import { listLabSessions } from "@/db/queries/lab-sessions";
 import { hasRole } from "@/lib/auth/actor";
 import { currentActor } from "@/lib/auth/guards";
 
@@ -33,10 +35,14 @@ export default async function HomePage() {
   const firstName = actor.name.split(" ")[0];
   const classes = hasRole(actor, "teacher", "student") ? listClasses({ actor }) : [];
   const children = hasRole(actor, "parent") ? listChildren({ actor }) : null;
+  const now = new Date();
+  const sessions = hasRole(actor, "teacher", "student") ? listLabSessions({ actor, now }) : [];
+  const taughtIds = new Set(classes.filter((c) => c.teachers.some((t) => t.id === actor.userId)).map((c) => c.id));
   return (
     <div className="flex flex-col gap-8">
       <PageHeader title={`Hello, ${firstName}`} lead="Here is what needs doing next." />
       {hasRole(actor, "admin") ? <AdminSection overview={adminOverview(actor)} /> : null}
+      {hasRole(actor, "teacher") ? <TeacherLabSessions items={sessions.filter((s) => taughtIds.has(s.classId))} now={now} /> : null}
       {hasRole(actor, "teacher") ? (
         <section aria-labelledby="teaching-heading" className="flex flex-col gap-3">
           <h2 id="teaching-heading" className="text-xl font-bold">
@@ -45,6 +51,7 @@ export default async function HomePage() {
           <ClassCards classes={classes.filter((c) => c.teachers.some((t) => t.id === actor.userId))} teacherView emptyText="You are not teaching any classes yet. Ask your school's admin to add you to one." />
         </section>
       ) : null}
+      {hasRole(actor, "student") ? <StudentLabSessions items={sessions.filter((s) => !taughtIds.has(s.classId) && !s.cancelledAt)} now={now} /> : null}
       {hasRole(actor, "student") ? (
         <section aria-labelledby="student-heading" className="flex flex-col gap-3">
           <h2 id="student-heading" className="text-xl font-bold">
