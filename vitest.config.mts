@@ -9,7 +9,7 @@ export default defineConfig({
   },
   test: {
     include: ["tests/**/*.test.ts", "tests/**/*.test.tsx"],
-    exclude: ["tests/e2e/**", "node_modules/**"],
+    exclude: ["tests/e2e/**", "tests/.tmp/**", "node_modules/**"],
     environment: "node",
     testTimeout: 20_000,
     server: { deps: { inline: [] } },
