@@ -69,6 +69,7 @@ function Report({ data, chart }: { data: TermReportData; chart: Buffer | null })
         {chart ? (
           <View wrap={false}>
             <Text style={styles.h2}>Skills this year</Text>
+            {/* eslint-disable-next-line jsx-a11y/alt-text -- a react-pdf Image, not an HTML img: the sentence below describes the chart */}
             <Image src={chart} style={{ width: 520, height: 243 }} />
             <Text style={styles.muted}>Each bar is the percentage of the marks available for that skill, averaged over the year and for the most recent practical.</Text>
           </View>
