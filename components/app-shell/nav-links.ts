@@ -10,6 +10,8 @@ export const NAV_LINKS: NavLink[] = [
   { href: "/lab-sessions", label: "Lab sessions", roles: ["teacher", "student", "admin"] },
   { href: "/marking", label: "Marking", roles: ["teacher"] },
   { href: "/moderation", label: "Moderation", roles: ["moderator", "admin"] },
+  { href: "/progress", label: "Progress", roles: ["student"] },
+  { href: "/progress/classes", label: "Progress", roles: ["teacher", "admin"] },
   { href: "/rubrics", label: "Rubrics", roles: ["teacher"] },
   { href: "/tools", label: "Calculators", roles: ["teacher"] },
   { href: "/admin/people", label: "People", roles: ["admin"] },
