@@ -176,6 +176,8 @@ export function GraphPanel(props: {
           borderWidth: 2,
           borderColor: palette.surface,
           backgroundColor: palette.accent,
+          // A point on the edge of the plot stays whole, so it can still be seen and picked up.
+          clip: 12,
           order: -1,
         },
       ],
@@ -198,7 +200,7 @@ export function GraphPanel(props: {
           title: { display: true, text: xTitle, color: palette.ink, font: { size: 14, weight: "bold" } },
           grid: { color: palette.line },
           border: { color: palette.muted },
-          ticks: { color: palette.muted },
+          ticks: { color: palette.muted, includeBounds: false },
         },
         y: {
           type: "linear",
@@ -207,7 +209,7 @@ export function GraphPanel(props: {
           title: { display: true, text: yTitle, color: palette.ink, font: { size: 14, weight: "bold" } },
           grid: { color: palette.line },
           border: { color: palette.muted },
-          ticks: { color: palette.muted },
+          ticks: { color: palette.muted, includeBounds: false },
         },
       },
       plugins: {

@@ -229,11 +229,11 @@ export function ResultsGrid(props: {
       </div>
       {!readOnly ? (
         <p id={helpId} className="text-sm text-muted">
-          Type numbers only: the units are in the headings. Arrow keys, Tab and Enter move between cells; Escape undoes a cell you are changing. You can paste a block copied from a spreadsheet.
+          Type numbers only: the units are in the headings. Arrow keys, Tab and Enter move between cells; Escape undoes a cell you are changing. You can paste a block copied from a spreadsheet; a block bigger than the table is not pasted at all, so nothing is half-done.
         </p>
       ) : null}
 
-      <div className="overflow-x-auto rounded-lg border border-line bg-surface">
+      <div className="w-fit max-w-full overflow-x-auto rounded-lg border border-line bg-surface">
         <table role="grid" aria-labelledby={titleId} aria-describedby={readOnly ? undefined : helpId} aria-readonly={readOnly || undefined} aria-rowcount={rowCount + 1} className="border-separate border-spacing-0 text-[0.97rem]">
           <thead>
             <tr role="row">
@@ -248,7 +248,10 @@ export function ResultsGrid(props: {
                   id={`${prefix}-h${ci}`}
                   className={cn("min-w-28 max-w-44 border-b border-line bg-sunken px-2 py-2 text-right align-bottom font-semibold", ci === 0 && "sticky left-12 z-20 border-r")}
                 >
-                  <span className="block leading-snug">{columnHeading(c)}</span>
+                  <span className="block leading-snug">
+                    {c.quantity}
+                    {c.unit.trim() ? <span className="whitespace-nowrap"> / {c.unit}</span> : null}
+                  </span>
                   <span className="block text-xs font-normal text-muted">
                     {c.symbol ? <i className="font-serif">{c.symbol}</i> : null}
                     {c.symbol ? " · " : null}
@@ -310,7 +313,7 @@ export function ResultsGrid(props: {
                         onKeyDown={(e) => onKeyDown(e, r, ci)}
                         onPaste={(e) => onPaste(e, r, ci)}
                         className={cn(
-                          "block min-h-11 w-full min-w-28 bg-transparent px-2 py-2 text-right tabular-nums text-ink focus:outline-none focus-visible:outline-3 focus-visible:-outline-offset-3 focus-visible:outline-[var(--focus)]",
+                          "block min-h-11 w-full min-w-28 bg-transparent px-2 py-2 text-right tabular-nums text-ink rounded-none focus:outline-3 focus:-outline-offset-3 focus:outline-solid focus:outline-[var(--focus)]",
                           preset !== null && "bg-sunken text-muted",
                           hasWarning && "bg-warn-soft",
                           undecided && "bg-accent-soft",
@@ -499,8 +502,8 @@ export function ResultsGrid(props: {
             {visibleIssues.map(({ issue, index }) => {
               const ci = columns.findIndex((c) => c.id === issue.column);
               return (
-                <li key={index} id={issueId(index)} className="flex items-start gap-2">
-                  <span className={cn("mt-0.5 shrink-0 rounded px-1.5 text-xs font-bold uppercase", issue.level === "error" ? "bg-bad-soft text-bad" : "bg-warn-soft text-warn")}>
+                <li key={index} id={issueId(index)} className="flex items-start gap-2 text-[0.97rem]">
+                  <span className={cn("mt-0.5 w-14 shrink-0 rounded px-1.5 text-center text-xs leading-5 font-bold uppercase", issue.level === "error" ? "bg-bad-soft text-bad" : "bg-warn-soft text-warn")}>
                     {issue.level === "error" ? "Fix" : "Check"}
                   </span>
                   <button type="button" className="min-h-7 text-left underline-offset-2 hover:underline" onClick={() => focusCell(issue.row, ci)}>

@@ -82,7 +82,7 @@ export function TangentControls({
         </p>
       ) : null}
       <div className="mt-2 grid max-w-xs">{field("at", `Tangent at ${name} / ${x.unit || "no unit"}`)}</div>
-      <div className="mt-3 grid grid-cols-2 gap-x-3 gap-y-2 sm:grid-cols-4">
+      <div className="mt-3 grid grid-cols-2 items-end gap-x-3 gap-y-2 sm:grid-cols-4">
         {field("x1", `Point 1: ${columnHeading(x)}`)}
         {field("y1", `Point 1: ${columnHeading(y)}`)}
         {field("x2", `Point 2: ${columnHeading(x)}`)}
