@@ -52,7 +52,7 @@ export function ConfirmAction({
       tabIndex={-1}
       role="group"
       aria-labelledby={questionId}
-      className={cn("flex flex-col gap-2 rounded-md border border-bad/50 bg-bad-soft p-3", className)}
+      className={cn("flex min-w-60 flex-col gap-2 rounded-md border p-3", variant === "danger" ? "border-bad/50 bg-bad-soft" : "border-brand/40 bg-brand-soft", className)}
       onKeyDown={(e) => {
         if (e.key === "Escape") setAsking(false);
       }}
@@ -62,7 +62,7 @@ export function ConfirmAction({
       </p>
       <div className="flex flex-wrap gap-2">
         <Button
-          variant="danger"
+          variant={variant === "danger" ? "danger" : "primary"}
           size="sm"
           disabled={busy}
           onClick={() => {

@@ -24,24 +24,26 @@ export function FamilyLinks({ person, side }: { person: PersonDetail; side: Side
   const [relationship, setRelationship] = useState("");
   const [fieldErrors, setFieldErrors] = useState<Record<string, string[]>>({});
   const [message, setMessage] = useState<{ tone: "good" | "bad"; text: string } | null>(null);
+  const [pickerKey, setPickerKey] = useState(0);
   const links = side === "guardians" ? person.guardians : person.children;
   const otherRole = side === "guardians" ? "parent" : "student";
   const pair = (otherId: string) => (side === "guardians" ? { parentId: otherId, studentId: person.id } : { parentId: person.id, studentId: otherId });
 
-  const refresh = async (otherId: string) => {
-    await queryClient.invalidateQueries({ queryKey: ["person", person.id] });
-    await queryClient.invalidateQueries({ queryKey: ["person", otherId] });
-    await queryClient.invalidateQueries({ queryKey: ["audit"] });
+  const refresh = (otherId: string) => {
+    void queryClient.invalidateQueries({ queryKey: ["person", person.id] });
+    void queryClient.invalidateQueries({ queryKey: ["person", otherId] });
+    void queryClient.invalidateQueries({ queryKey: ["audit"] });
   };
 
   const link = useMutation({
     mutationFn: (other: PickerPerson) => fetchJson("/api/family-links", { method: "POST", json: { ...pair(other.id), relationship: relationship.trim() || "Parent" } }),
-    onSuccess: async (_d, other) => {
+    onSuccess: (_d, other) => {
       setMessage({ tone: "good", text: side === "guardians" ? `${other.name} is now linked to ${person.name}.` : `${person.name} is now linked to ${other.name}.` });
       setChosen(null);
       setRelationship("");
       setFieldErrors({});
-      await refresh(other.id);
+      setPickerKey((k) => k + 1);
+      refresh(other.id);
     },
     onError: (e) => {
       const fe = e instanceof ApiError ? e.fieldErrors : {};
@@ -52,9 +54,9 @@ export function FamilyLinks({ person, side }: { person: PersonDetail; side: Side
 
   const unlink = useMutation({
     mutationFn: (other: { id: string; name: string }) => fetchJson("/api/family-links", { method: "DELETE", json: pair(other.id) }),
-    onSuccess: async (_d, other) => {
+    onSuccess: (_d, other) => {
       setMessage({ tone: "good", text: `The link between ${person.name} and ${other.name} has been removed. Both accounts are kept.` });
-      await refresh(other.id);
+      refresh(other.id);
     },
     onError: (e) => setMessage({ tone: "bad", text: errorMessage(e) }),
   });
@@ -104,6 +106,7 @@ export function FamilyLinks({ person, side }: { person: PersonDetail; side: Side
       >
         <p className="font-semibold">{side === "guardians" ? "Link a parent or guardian" : "Link a child"}</p>
         <PersonPicker
+          key={pickerKey}
           id={`link-${side}`}
           label={side === "guardians" ? "Parent or guardian" : "Student"}
           role={otherRole}

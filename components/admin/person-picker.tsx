@@ -5,7 +5,6 @@ import { useEffect, useRef, useState } from "react";
 import { Input } from "@/components/ui/field";
 import { fetchJson } from "@/lib/fetch-json";
 import type { Role } from "@/lib/roles";
-import { cn } from "@/lib/utils";
 import type { PickerPerson } from "./api-types";
 import { useDebouncedValue } from "./use-debounced-value";
 
@@ -26,10 +25,7 @@ function describe(p: PickerPerson) {
   return `${p.email}${p.yearGroup ? ` · Year ${p.yearGroup}` : ""}`;
 }
 
-/**
- * Search, then choose one person with a radio button. Keyboard: type, Tab into the list, arrow
- * keys move between people.
- */
+/** Search, then choose one person by pressing their button (Tab moves through the matches). */
 export function PersonPicker({
   id,
   label,
@@ -87,30 +83,31 @@ export function PersonPicker({
           </label>
           <Input ref={searchRef} id={`${id}-search`} type="search" autoComplete="off" value={q} onChange={(e) => setQ(e.target.value)} aria-invalid={error ? true : undefined} />
           <div aria-live="polite" className="text-sm text-muted">
-            {q.trim() && search.data ? (results.length ? `${results.length} found${search.data.total > results.length ? " (showing the first few; type more to narrow it down)" : ""}` : "Nobody found.") : null}
+            {q.trim() && search.data
+              ? results.length
+                ? `${results.length} found${search.data.total > search.data.people.length ? "; more match, so type more of the name to narrow it down" : ""}.`
+                : "Nobody found."
+              : null}
             {search.isError ? "The search did not work. Try again." : null}
           </div>
           {q.trim() && results.length ? (
             <ul className="flex flex-col gap-1">
               {results.map((p) => (
                 <li key={p.id}>
-                  <label htmlFor={`${id}-${p.id}`} className={cn("flex min-h-11 cursor-pointer items-start gap-3 rounded-md border border-line px-3 py-2 hover:border-brand")}>
-                    <input
-                      id={`${id}-${p.id}`}
-                      type="radio"
-                      name={id}
-                      className="mt-1 size-5 accent-brand"
-                      checked={false}
-                      onChange={() => {
-                        moveFocus.current = "chosen";
-                        onChange(p);
-                      }}
-                    />
-                    <span>
-                      <span className="block font-semibold">{p.name}</span>
-                      <span className="block text-sm text-muted">{describe(p)}</span>
+                  <button
+                    type="button"
+                    className="flex min-h-11 w-full flex-col items-start rounded-md border border-line bg-surface px-3 py-2 text-left hover:border-brand"
+                    onClick={() => {
+                      moveFocus.current = "chosen";
+                      onChange(p);
+                    }}
+                  >
+                    <span className="font-semibold">
+                      <span className="sr-only">Choose </span>
+                      {p.name}
                     </span>
-                  </label>
+                    <span className="text-sm text-muted">{describe(p)}</span>
+                  </button>
                 </li>
               ))}
             </ul>
