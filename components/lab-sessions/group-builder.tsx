@@ -115,9 +115,18 @@ export function GroupBuilder({
                 </p>
                 {count ? (
                   <ul className="text-[0.97rem]">
-                    {g.studentIds.map((id) => (
-                      <li key={id}>{names.get(id) ?? "A student no longer in the class"}</li>
-                    ))}
+                    {g.studentIds.map((id) =>
+                      names.has(id) ? (
+                        <li key={id}>{names.get(id)}</li>
+                      ) : (
+                        <li key={id} className="flex flex-wrap items-center gap-2">
+                          <span className="text-muted">A student no longer in the class</span>
+                          <Button variant="ghost" size="sm" onClick={() => onChange(assignStudent(groups, id, null))}>
+                            Take out of {g.name.trim() || "this group"}
+                          </Button>
+                        </li>
+                      ),
+                    )}
                   </ul>
                 ) : null}
                 {memberError ? (

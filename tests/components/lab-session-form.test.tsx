@@ -3,6 +3,7 @@ import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { cleanup, fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import type { LabSessionFormValues } from "@/components/lab-sessions/form-values";
+import { GroupBuilder } from "@/components/lab-sessions/group-builder";
 import { LabSessionForm } from "@/components/lab-sessions/lab-session-form";
 
 const router = { push: vi.fn(), refresh: vi.fn(), replace: vi.fn() };
@@ -132,5 +133,15 @@ describe("LabSessionForm", () => {
     fireEvent.change(field("Class"), { target: { value: "c2" } });
     expect(await screen.findByText(/The groups were cleared because the class changed/)).toBeTruthy();
     expect(screen.queryByRole("list", { name: "Groups" })).toBeNull();
+  });
+});
+
+describe("GroupBuilder", () => {
+  it("lets a student who has left the class be taken out of their group", () => {
+    const onChange = vi.fn();
+    render(<GroupBuilder idPrefix="t" roster={roster.slice(0, 2)} groups={[{ id: "g1", name: "Bench A", studentIds: ["st1", "gone", "st2"] }]} onChange={onChange} errors={{}} />);
+    expect(screen.getByText("A student no longer in the class")).toBeTruthy();
+    fireEvent.click(screen.getByRole("button", { name: "Take out of Bench A" }));
+    expect(onChange).toHaveBeenCalledWith([{ id: "g1", name: "Bench A", studentIds: ["st1", "st2"] }]);
   });
 });
