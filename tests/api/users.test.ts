@@ -2,6 +2,11 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vites
 import { previewToken } from "@/db/queries/invitations";
 import { startFakeSmtp } from "@/lib/dev/fake-smtp";
 import type { Actor } from "@/lib/auth/actor";
+import * as audit from "@/app/api/audit/route";
+import * as classItem from "@/app/api/classes/[id]/route";
+import * as classList from "@/app/api/classes/route";
+import * as outbox from "@/app/api/outbox/route";
+import * as picker from "@/app/api/people-picker/route";
 import * as invitation from "@/app/api/users/[id]/invitation/route";
 import * as person from "@/app/api/users/[id]/route";
 import * as people from "@/app/api/users/route";
@@ -164,6 +169,29 @@ describe("/api/users", () => {
     const self = await call(person.PATCH, apiRequest(`/api/users/${admin.userId}`, "PATCH", { active: false }), { id: admin.userId });
     expect(self.status).toBe(400);
     expect(self.body.error.message).toMatch(/own account/);
+  });
+
+  it("never puts a password hash, token hash or token in any answer", async () => {
+    const teacher = makeUser(schoolId, ["teacher"], { name: "Perpetua Oyelaran", passwordHash: "$argon2id$v=19$m=19456,t=2,p=1$leak" });
+    const student = makeUser(schoolId, ["student"], { name: "Quillon Drummond" });
+    const classId = makeClass(schoolId, { teachers: [teacher], students: [student] });
+    await call(invitation.POST, apiRequest(`/api/users/${student.userId}/invitation`, "POST"), { id: student.userId });
+    const answers = [
+      await call(people.GET, apiRequest("/api/users")),
+      await call(person.GET, apiRequest(`/api/users/${teacher.userId}`), { id: teacher.userId }),
+      await call(person.GET, apiRequest(`/api/users/${student.userId}`), { id: student.userId }),
+      await call(person.PATCH, apiRequest(`/api/users/${teacher.userId}`, "PATCH", { name: "Perpetua Oyelaran-Fenn" }), { id: teacher.userId }),
+      await call(classList.GET, apiRequest("/api/classes")),
+      await call(classItem.GET, apiRequest(`/api/classes/${classId}`), { id: classId }),
+      await call(picker.GET, apiRequest("/api/people-picker?role=teacher")),
+      await call(audit.GET, apiRequest("/api/audit")),
+      await call(outbox.GET, apiRequest("/api/outbox")),
+    ];
+    for (const a of answers) {
+      expect(a.status).toBe(200);
+      expectNoSecrets(a.text);
+      expect(a.text).not.toContain("$argon2");
+    }
   });
 
   it("answers 404 for an id that does not exist", async () => {
