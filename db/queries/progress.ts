@@ -9,7 +9,7 @@ import { sendMail, simpleHtml } from "@/lib/mail";
 import { termReportPdf } from "@/lib/reports/term-report";
 import { checkHistory, skillProgress, termOf, type ReturnedWork } from "@/lib/progress/summary";
 import { getDb, type DbOrTx } from "../client";
-import { checkAttempts, classes, classStudents, labSessions, marks, parentLinks, practicalVersions, schools, users, writeUps } from "../schema";
+import { checkAttempts, classes, classStudents, labSessions, marks, parentLinks, practicalVersions, schools, users, writeUps, type WriteUpStatus } from "../schema";
 import { recordAudit } from "./audit";
 import { taughtClassIds, teachesClass } from "./classes";
 import { labSessionState } from "./lab-sessions";
@@ -111,7 +111,7 @@ export function getStudentProgress({ actor, studentId, now = new Date(), term }:
     : [];
   const own = new Map(db.select({ labSessionId: writeUps.labSessionId, status: writeUps.status }).from(writeUps).where(eq(writeUps.studentId, studentId)).all().map((w) => [w.labSessionId, w.status]));
   const coming = sessions
-    .map((s) => ({ id: s.id, title: s.title, className: s.className, opensAt: s.opensAt, dueAt: s.dueAt, state: labSessionState(s, now), writeUp: own.get(s.id) ?? "not-started" }))
+    .map((s) => ({ id: s.id, title: s.title, className: s.className, opensAt: s.opensAt, dueAt: s.dueAt, state: labSessionState(s, now), writeUp: (own.get(s.id) ?? "not-started") as WriteUpStatus | "not-started" }))
     .filter((s) => s.state === "open" || s.state === "upcoming" || s.state === "late");
   const missed = sessions.filter((s) => labSessionState(s, now) === "closed" && (!own.has(s.id) || own.get(s.id) === "draft")).map((s) => ({ id: s.id, title: s.title, dueAt: s.dueAt }));
   const showChecks = actor.userId === studentId || hasRole(actor, "teacher", "admin");

@@ -7,7 +7,7 @@ import type { CheckAnswer, CheckOutcome, StudentCheckView } from "@/lib/checks/t
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import type { PracticalContent } from "@/lib/validation/practicals";
 import { writeUpContentSchema, type GroupTables, type WriteUpContent } from "@/lib/validation/write-ups";
-import { rowsForCheck } from "@/lib/write-ups/rows-for-check";
+import { keptInReadings, rowsForCheck } from "@/lib/write-ups/rows-for-check";
 import { answerFingerprint, checkDataFingerprint, isStale } from "@/lib/write-ups/stale";
 import { getDb, type DbOrTx } from "../client";
 import { checkAttempts, classes, classStudents, groupTables, labSessions, marks, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
@@ -242,7 +242,7 @@ export function runWriteUpCheck({ actor, writeUpId, checkId, answer, now = new D
     const table = version.content.tables.find((t) => t.id === spec.tableId);
     if (!table) throw notFound("That results table");
     const { tables } = effectiveTables(db, s, w);
-    const outcome = runPracticalCheck(spec, table, rowsForCheck(tables[spec.tableId]), answer);
+    const outcome = runPracticalCheck(spec, table, rowsForCheck(tables[spec.tableId]), answer, { keptIn: keptInReadings(tables[spec.tableId]) });
     const stored = { outcome, dataHash: checkDataFingerprint(spec, tables), answerHash: answerFingerprint(answer), at: now.getTime() };
     db.update(writeUps).set({ checkResults: { ...w.checkResults, [checkId]: stored } }).where(eq(writeUps.id, w.id)).run();
     db.insert(checkAttempts).values({ schoolId: actor.schoolId, writeUpId: w.id, studentId: w.studentId, checkId, kind: spec.kind, verdict: outcome.verdict, slipCode: outcome.likelySlip?.code ?? null, at: now }).run();

@@ -4,7 +4,7 @@
 import { runPracticalCheck } from "@/lib/checks/run";
 import type { PracticalContent } from "@/lib/validation/practicals";
 import { writeUpContentSchema, type WriteUpContent } from "@/lib/validation/write-ups";
-import { rowsForCheck } from "@/lib/write-ups/rows-for-check";
+import { keptInReadings, rowsForCheck } from "@/lib/write-ups/rows-for-check";
 import { answerFingerprint, checkDataFingerprint } from "@/lib/write-ups/stale";
 import type { StoredCheckResults } from "../schema";
 import { seededRandom } from "./people";
@@ -135,7 +135,7 @@ export function writeUpFor(practicalKey: string, practical: PracticalContent, in
     const perRow = spec.kind === "reciprocal-time" || spec.kind === "mean-of-repeats";
     if (!table || !filled || (!answer && !perRow)) continue;
     const a = { value: answer?.value ?? "", unit: answer?.unit ?? "", tangent: answer?.tangent ?? null };
-    const outcome = runPracticalCheck(spec, table, rowsForCheck(filled), a);
+    const outcome = runPracticalCheck(spec, table, rowsForCheck(filled), a, { keptIn: keptInReadings(filled) });
     checkResults[spec.id] = { outcome, dataHash: checkDataFingerprint(spec, content.tables), answerHash: answerFingerprint(answer), at: now };
     attempts.push({ checkId: spec.id, kind: spec.kind, verdict: outcome.verdict, slipCode: outcome.likelySlip?.code ?? null });
   }

@@ -1,5 +1,6 @@
 import {
   checkKinds,
+  findAnomalies,
   MarkingInputError,
   parseTypedNumber,
   runCheck,
@@ -32,7 +33,7 @@ export function toResultsTable(table: TableTemplate, rows: TableRows): ResultsTa
 }
 
 /** The engine's definition of a check from the practical's check, reading fixed values from the data where needed. */
-export function toDefinition(spec: CheckSpec, rows: TableRows): CheckDefinition {
+export function toDefinition(spec: CheckSpec, rows: TableRows, keptIn?: ReadonlySet<string>): CheckDefinition {
   const policy = { tolerancePercent: spec.tolerancePercent, ...(spec.sigFigs ? { significantFigures: { min: spec.sigFigs.min, max: spec.sigFigs.max } } : {}) };
   switch (spec.kind) {
     case "mean-rate":
@@ -46,7 +47,7 @@ export function toDefinition(spec: CheckSpec, rows: TableRows): CheckDefinition 
     case "reciprocal-time":
       return { kind: "reciprocal-time", t: spec.t, policy };
     case "mean-of-repeats":
-      return { kind: "mean-of-repeats", repeats: spec.repeats, policy };
+      return { kind: "mean-of-repeats", repeats: spec.repeats, policy, ...(keptIn?.size ? { anomalyPercent: 1e9 } : {}) };
     case "order":
       return { kind: "order", concentration: spec.concentration, rate: spec.rate, policy };
     case "activation-energy":
@@ -112,11 +113,26 @@ function outcomeFromResult(spec: CheckSpec, result: CheckResult): CheckOutcome {
  * reason. A check whose definition does not fit the table (a problem in the practical) also
  * comes back that way, with the reason for the teacher.
  */
-export function runPracticalCheck(spec: CheckSpec, table: TableTemplate, rows: TableRows, answer: CheckAnswer): CheckOutcome {
+export function runPracticalCheck(spec: CheckSpec, table: TableTemplate, rows: TableRows, answer: CheckAnswer, options: { keptIn?: ReadonlySet<string> } = {}): CheckOutcome {
+  const keptIn = options.keptIn;
+  if (spec.kind === "mean-of-repeats" && keptIn?.size) {
+    // The student chose to keep some flagged readings, with a reason: apply the anomaly rule here,
+    // row by row, except for those readings, and let the check use exactly what remains.
+    rows = rows.map((r, i) => {
+      const cols = spec.repeats.filter((c) => cellNumber(r[c]) !== null);
+      const values = cols.map((c) => cellNumber(r[c])!);
+      const next = { ...r };
+      for (const a of values.length >= 3 ? findAnomalies(values) : []) {
+        const col = cols[a.index]!;
+        if (!keptIn.has(`${i}:${col}`)) next[col] = null;
+      }
+      return next;
+    });
+  }
   const resultsTable = toResultsTable(table, rows);
   let result: CheckResult;
   try {
-    const definition = toDefinition(spec, rows);
+    const definition = toDefinition(spec, rows, keptIn);
     const input = isPerRow(spec)
       ? { rows: rows.map((r) => { const v = "answerColumn" in spec ? r[spec.answerColumn] : null; return v == null || v === "" ? null : { value: String(v), unit: table.columns.find((c) => c.id === spec.answerColumn)?.unit ?? "" }; }) }
       : { value: answer.value, unit: answer.unit, ...(answer.tangent ? { tangent: answer.tangent } : {}) };

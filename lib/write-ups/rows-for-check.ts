@@ -15,3 +15,8 @@ export function rowsForCheck(t: FilledTable | undefined): TableRows {
   }
   return rows;
 }
+
+/** Readings the student chose to keep in against the anomaly rule (with a reason), as "row:column". */
+export function keptInReadings(t: FilledTable | undefined): Set<string> {
+  return new Set(Object.entries(t?.decisions ?? {}).filter(([, d]) => d.include).map(([k]) => k));
+}

@@ -101,3 +101,31 @@ describe("POST /api/checks/preview", () => {
     expect(refused.status).toBe(403);
   });
 });
+
+describe("a student's reasoned decision to keep a flagged reading", () => {
+  // Invented repeats: 62.0, 64.0 and 80.0 s; 80.0 is more than 10 % from the median (64.0), so the
+  // rule (common practice) leaves it out: mean (62 + 64) / 2 = 63.0 s. Kept in, the mean is
+  // (62 + 64 + 80) / 3 = 68.67 s (hand-worked).
+  const repeats = tableSchema.parse({
+    id: "r",
+    title: "Repeats",
+    rowCount: 1,
+    columns: [
+      { id: "a", quantity: "time, run 1", unit: "s", role: "repeat" },
+      { id: "b", quantity: "time, run 2", unit: "s", role: "repeat" },
+      { id: "c", quantity: "time, run 3", unit: "s", role: "repeat" },
+      { id: "m", quantity: "mean time", unit: "s", role: "mean", meanOf: ["a", "b", "c"] },
+    ],
+  });
+  const spec = checkSchema.parse({ id: "mm", label: "Mean", kind: "mean-of-repeats", tableId: "r", repeats: ["a", "b", "c"], answerColumn: "m", tolerancePercent: 1, expectedUnit: "s" }) as CheckSpec;
+
+  it("follows the anomaly rule when the student made no decision", () => {
+    expect(runPracticalCheck(spec, repeats, [{ a: "62.0", b: "64.0", c: "80.0", m: "63.0" }], { value: "", unit: "" }).rows![0]!.verdict).toBe("agrees");
+  });
+
+  it("includes the reading the student kept in, so their mean agrees", () => {
+    const o = runPracticalCheck(spec, repeats, [{ a: "62.0", b: "64.0", c: "80.0", m: "68.7" }], { value: "", unit: "" }, { keptIn: new Set(["0:c"]) });
+    expect(o.rows![0]!.verdict).toBe("agrees");
+    expect(o.rows![0]!.expected!).toBeCloseTo(206 / 3, 8);
+  });
+});
