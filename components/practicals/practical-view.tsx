@@ -63,7 +63,7 @@ export function ResultsTableTemplate({ table, maxRows = 4 }: { table: TableTempl
               {table.columns.map((c) => {
                 const v = table.presetRows[r]?.[c.id];
                 return (
-                  <Td key={c.id} className="h-9">
+                  <Td key={c.id} className="relative h-9">
                     {typeof v === "number" ? v : <span className="sr-only">blank</span>}
                   </Td>
                 );

@@ -155,7 +155,7 @@ export function PracticalEditor({ version, topics }: { version: EditableVersion;
     } catch (e) {
       if (e instanceof ApiError && e.status === 400) {
         setPublishAttempted(true);
-        setPublishMessage(e.message);
+        if (!Object.keys(e.fieldErrors).length) setPublishMessage(e.message);
         setTimeout(() => document.getElementById("problems-summary")?.focus(), 0);
       } else setPublishMessage(e instanceof ApiError ? e.message : "Could not publish. Please try again.");
     } finally {
@@ -259,8 +259,8 @@ export function PracticalEditor({ version, topics }: { version: EditableVersion;
             </p>
           ) : null}
 
-          <div className="grid gap-4 md:grid-cols-[15rem_1fr] md:gap-6">
-            <div className="md:sticky md:top-16 md:self-start">
+          <div className="grid grid-cols-1 gap-4 md:grid-cols-[15rem_minmax(0,1fr)] md:gap-6">
+            <div className="min-w-0 md:sticky md:top-16 md:self-start">
               <SectionNav active={section} onSelect={(k) => openSection(k)} problems={counts} />
               <p className="mt-3 hidden text-sm md:block">
                 <Link href={`/practicals/${version.practicalId}/prep`}>Prep list for technicians</Link>

@@ -1,12 +1,20 @@
 "use client";
 
+import { useEffect, useRef } from "react";
 import { cn } from "@/lib/utils";
 import { SECTIONS, type SectionKey } from "../draft";
 
 /** The list of sections: down the side on a wide screen, a scrolling row across the top on a phone. */
 export function SectionNav({ active, onSelect, problems }: { active: SectionKey; onSelect: (key: SectionKey) => void; problems: Partial<Record<string, number>> }) {
+  const navRef = useRef<HTMLElement>(null);
+  useEffect(() => {
+    // On a phone the list scrolls sideways: keep the open section in sight (without moving the page).
+    const nav = navRef.current;
+    const link = nav?.querySelector<HTMLElement>('[aria-current="step"]');
+    if (nav && link && nav.scrollWidth > nav.clientWidth) nav.scrollLeft = Math.max(0, link.offsetLeft - 16);
+  }, [active]);
   return (
-    <nav aria-label="Sections of the practical" className="-mx-4 overflow-x-auto px-4 md:mx-0 md:overflow-visible md:px-0">
+    <nav ref={navRef} aria-label="Sections of the practical" className="relative -mx-4 overflow-x-auto px-4 md:mx-0 md:overflow-visible md:px-0">
       <ol className="flex gap-1.5 pb-1 md:flex-col md:gap-1 md:pb-0">
         {SECTIONS.map((s, i) => {
           const n = problems[s.key] ?? 0;
@@ -30,7 +38,7 @@ export function SectionNav({ active, onSelect, problems }: { active: SectionKey;
                   {s.label}
                 </span>
                 {n ? (
-                  <span className={cn("rounded-full px-2 text-xs", current ? "bg-on-brand text-brand" : "bg-warn-soft text-warn")}>
+                  <span className={cn("shrink-0 rounded-full px-2 text-xs whitespace-nowrap", current ? "bg-on-brand text-brand" : "bg-warn-soft text-warn")}>
                     {n} to fix<span className="sr-only"> in this section</span>
                   </span>
                 ) : null}

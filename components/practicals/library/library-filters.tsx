@@ -26,14 +26,15 @@ export function LibraryFilters({ initial, topics }: { initial: LibraryFilterValu
   const pathname = usePathname();
   const [values, setValues] = useState(initial);
   const [pending, startTransition] = useTransition();
-  const first = useRef(true);
+  const shownQuery = useRef(filtersToQuery(initial));
 
   useEffect(() => {
-    if (first.current) {
-      first.current = false;
-      return;
-    }
-    const t = setTimeout(() => startTransition(() => router.replace(`${pathname}${filtersToQuery(values)}`, { scroll: false })), 350);
+    const query = filtersToQuery(values);
+    if (query === shownQuery.current) return;
+    const t = setTimeout(() => {
+      shownQuery.current = query;
+      startTransition(() => router.replace(`${pathname}${query}`, { scroll: false }));
+    }, 350);
     return () => clearTimeout(t);
   }, [values, pathname, router]);
 
@@ -45,7 +46,8 @@ export function LibraryFilters({ initial, topics }: { initial: LibraryFilterValu
       className="grid gap-3 rounded-lg border border-line bg-surface p-3 sm:grid-cols-[2fr_1.4fr_1fr_auto] sm:items-end"
       onSubmit={(e) => {
         e.preventDefault();
-        startTransition(() => router.replace(`${pathname}${filtersToQuery(values)}`, { scroll: false }));
+        shownQuery.current = filtersToQuery(values);
+        startTransition(() => router.replace(`${pathname}${shownQuery.current}`, { scroll: false }));
       }}
     >
       <div className="flex flex-col gap-1">

@@ -61,7 +61,7 @@ export default async function PracticalOverviewPage({ params }: PageProps<"/prac
               <Th>Status</Th>
               <Th>When</Th>
               <Th>Lab sessions</Th>
-              <Th>
+              <Th className="relative">
                 <span className="sr-only">Open</span>
               </Th>
             </tr>

@@ -135,7 +135,7 @@ export function SafetySection({ draft, change }: { draft: Draft; change: Change 
             ))}
           </ol>
         ) : (
-          <p className="text-muted">No hazards yet. A practical cannot be published without at least one hazard and how it is controlled.</p>
+          <p className="text-muted">No hazards yet. List each substance or activity that could hurt someone, and how the risk is controlled.</p>
         )}
         <div>
           <Button

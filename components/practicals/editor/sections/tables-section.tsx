@@ -144,7 +144,7 @@ function ColumnEditor({
           <Button size="sm" variant="ghost" disabled={index === table.columns.length - 1} onClick={() => onMove(1)} aria-label={`Move column ${index + 1} right`}>
             Move right →
           </Button>
-          <Button size="sm" variant="ghost" onClick={onRemove} disabled={table.columns.length <= 1} aria-label={`Remove column ${index + 1} (${columnHeader(column)})`}>
+          <Button size="sm" variant="ghost" onClick={onRemove} disabled={table.columns.length <= 1} aria-label={`Remove column ${index + 1}${column.quantity.trim() ? ` (${columnHeader(column)})` : ""}`}>
             Remove
           </Button>
         </div>
