@@ -1,8 +1,12 @@
 import "server-only";
-import { getDb } from "@/db/client";
+import path from "node:path";
+import { databasePath, getDb } from "@/db/client";
+import { sweepOrphanUploads } from "@/db/queries/evidence";
 import { hasAnySchool, seedDemoSchool } from "@/db/seed/index";
 import { authSecret } from "./auth/secret";
+import { startFakeS3 } from "./dev/fake-s3";
 import { startFakeSmtp } from "./dev/fake-smtp";
+import { ensureBucket, storageSettings } from "./storage";
 
 const g = globalThis as unknown as { __meniscusBooted?: Promise<void> };
 
@@ -23,6 +27,23 @@ export function boot(): Promise<void> {
         console.error(`[meniscus] could not start the mail catcher on port ${port}: ${(e as Error).message}. Set MAIL_FAKE_PORT to a free port, or SMTP_URL.`);
       }
     }
+    if (!process.env.S3_ENDPOINT) {
+      const port = Number(process.env.S3_FAKE_PORT ?? 4569);
+      try {
+        const dir = path.join(path.dirname(databasePath()), "s3");
+        const { port: bound } = await startFakeS3({ port, directory: dir, bucket: storageSettings().bucket });
+        console.log(`[meniscus] local S3 storage listening on 127.0.0.1:${bound}`);
+      } catch (e) {
+        console.error(`[meniscus] could not start the local S3 storage on port ${port}: ${(e as Error).message}. Set S3_FAKE_PORT to a free port, or S3_ENDPOINT.`);
+      }
+    }
+    try {
+      await ensureBucket();
+    } catch (e) {
+      console.error("[meniscus] photo storage is not reachable; photos cannot be added until it is:", (e as Error).message);
+    }
+    // Uploads that were never confirmed are removed after an hour.
+    setInterval(() => void sweepOrphanUploads().catch((e) => console.error("[meniscus] orphan sweep failed", e)), 30 * 60 * 1000).unref();
     if (!hasAnySchool(db) && process.env.MENISCUS_SEED !== "off") {
       const res = await seedDemoSchool(db);
       console.log(`[meniscus] seeded the demo school (${res.userIds.size} people, ${res.classIds.size} classes)`);

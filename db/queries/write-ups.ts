@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import type { Actor } from "@/lib/auth/actor";
 import { hasRole } from "@/lib/auth/actor";
 import { runPracticalCheck, studentView } from "@/lib/checks/run";
@@ -10,7 +10,7 @@ import { writeUpContentSchema, type GroupTables, type WriteUpContent } from "@/l
 import { keptInReadings, rowsForCheck } from "@/lib/write-ups/rows-for-check";
 import { answerFingerprint, checkDataFingerprint, isStale } from "@/lib/write-ups/stale";
 import { getDb, type DbOrTx } from "../client";
-import { checkAttempts, classes, classStudents, groupTables, labSessions, marks, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
+import { checkAttempts, classes, classStudents, groupTables, labSessions, marks, moderationItems, moderationSamples, parentLinks, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
 import { recordAudit } from "./audit";
 import { teachesClass } from "./classes";
 import { labSessionState } from "./lab-sessions";
@@ -156,6 +156,39 @@ export function viewWriteUpAsReader({ actor, writeUpId, now = new Date() }: { ac
   if (!w) throw notFound("That write-up");
   const s = loadSession(db, actor.schoolId, w.labSessionId);
   return { ...buildView(db, actor, w, s, "staff", now), canEdit: false, canSubmit: false, canReopen: false };
+}
+
+export type ReadAccess = "owner" | "staff" | "moderator" | "parent";
+
+/**
+ * Who may read a write-up (and its photos): its student; the class's teachers and admins; a
+ * moderator whose sample includes it; a linked parent once it has been returned. Null otherwise.
+ */
+export function writeUpReadAccess(db: DbOrTx, actor: Actor, writeUpId: string): { access: ReadAccess; writeUp: WriteUp; session: LabSession } | null {
+  const w = db.select().from(writeUps).where(and(eq(writeUps.id, writeUpId), eq(writeUps.schoolId, actor.schoolId))).get();
+  if (!w) return null;
+  const s = loadSession(db, actor.schoolId, w.labSessionId);
+  if (w.studentId === actor.userId) return { access: "owner", writeUp: w, session: s };
+  if (hasRole(actor, "admin") || teachesClass(db, actor, s.classId)) return { access: "staff", writeUp: w, session: s };
+  if (
+    hasRole(actor, "moderator") &&
+    db
+      .select({ id: moderationItems.id })
+      .from(moderationItems)
+      .innerJoin(moderationSamples, eq(moderationSamples.id, moderationItems.sampleId))
+      .where(and(eq(moderationItems.writeUpId, w.id), isNull(moderationItems.removedAt), eq(moderationSamples.moderatorId, actor.userId)))
+      .get()
+  )
+    return { access: "moderator", writeUp: w, session: s };
+  if (w.status === "returned" && hasRole(actor, "parent") && db.select({ id: parentLinks.studentId }).from(parentLinks).where(and(eq(parentLinks.parentId, actor.userId), eq(parentLinks.studentId, w.studentId))).get())
+    return { access: "parent", writeUp: w, session: s };
+  return null;
+}
+
+/** Whether the student may still change the write-up now (draft, lab session open or late). */
+export function isEditableNow(w: WriteUp, s: LabSession, now = new Date()): boolean {
+  const state = labSessionState(s, now);
+  return w.status === "draft" && (state === "open" || state === "late");
 }
 
 /** A write-up by id, for its student or their teacher (or an admin). */

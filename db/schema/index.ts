@@ -8,3 +8,4 @@ export * from "./mail-messages";
 export * from "./practicals";
 export * from "./write-ups";
 export * from "./marking";
+export * from "./evidence";
