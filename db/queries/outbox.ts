@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, isNull, like, or } from "drizzle-orm";
+import { and, desc, eq, like } from "drizzle-orm";
 import type { Actor } from "@/lib/auth/actor";
 import { hasRole } from "@/lib/auth/actor";
 import { forbidden, notFound } from "@/lib/errors";
@@ -13,7 +13,7 @@ export function storeReceivedMail(msg: typeof mailMessages.$inferInsert): void {
 /** The outbox of the built-in mail catcher, for an admin of the school. */
 export function listOutbox({ actor, to, limit = 100 }: { actor: Actor; to?: string; limit?: number }) {
   if (!hasRole(actor, "admin")) throw forbidden("Only an admin can read the outbox.");
-  const conditions = [or(eq(mailMessages.schoolId, actor.schoolId), isNull(mailMessages.schoolId))!];
+  const conditions = [eq(mailMessages.schoolId, actor.schoolId)];
   if (to?.trim()) conditions.push(like(mailMessages.to, `%${to.trim().toLowerCase()}%`));
   return getDb()
     .select({ id: mailMessages.id, to: mailMessages.to, subject: mailMessages.subject, receivedAt: mailMessages.receivedAt, attachments: mailMessages.attachments })
@@ -37,7 +37,7 @@ export function getOutboxMessage({ actor, id }: { actor: Actor; id: string }) {
       attachments: mailMessages.attachments,
     })
     .from(mailMessages)
-    .where(and(eq(mailMessages.id, id), or(eq(mailMessages.schoolId, actor.schoolId), isNull(mailMessages.schoolId))))
+    .where(and(eq(mailMessages.id, id), eq(mailMessages.schoolId, actor.schoolId)))
     .get();
   if (!row) throw notFound("That message");
   return row;

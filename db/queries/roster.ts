@@ -79,15 +79,20 @@ export function previewRoster({ actor, classId, csv }: { actor: Actor; classId: 
   const fileErrors: string[] = [];
   const ignoredColumns: string[] = [];
   const text = csv.replace(/^\uFEFF/, "");
+  // Blank lines are kept while parsing so every row keeps its line number in the file, then dropped.
   const parsed = Papa.parse<Record<string, string>>(text, {
     header: true,
-    skipEmptyLines: "greedy",
+    skipEmptyLines: false,
     transformHeader: (h) => {
       const key = HEADER_ALIASES[h.toLowerCase().replace(/[^a-z]/g, "")];
       if (!key && h.trim()) ignoredColumns.push(h.trim());
       return key ?? `__ignored:${h}`;
     },
   });
+  const isBlank = (r: Record<string, unknown>) => Object.values(r).every((v) => v == null || (typeof v === "string" ? v.trim() === "" : Array.isArray(v) && v.every((x) => !String(x).trim())));
+  const numbered = parsed.data.map((row, i) => ({ row, line: i + 2 })).filter(({ row }) => !isBlank(row));
+  const blankRows = new Set(parsed.data.map((row, i) => (isBlank(row) ? i : -1)).filter((i) => i >= 0));
+  parsed.errors = parsed.errors.filter((e) => !(e.code === "TooFewFields" && e.row != null && blankRows.has(e.row)));
   const headers = new Set(parsed.meta.fields ?? []);
   for (const required of ["name", "email"] as const) {
     if (!headers.has(required)) fileErrors.push(`The file has no “${required === "name" ? "name" : "email"}” column. The first line must name the columns, for example: name,email,year group,parent name,parent email.`);
@@ -98,16 +103,15 @@ export function previewRoster({ actor, classId, csv }: { actor: Actor; classId: 
     const line = (e.row ?? 0) + (e.code === "MissingQuotes" ? 1 : 2);
     fileErrors.push(`Line ${line}: ${e.message}.`);
   }
-  if (parsed.data.length === 0 && !fileErrors.length) fileErrors.push("The file has a header line but no students.");
-  if (parsed.data.length > ROSTER_MAX_ROWS) fileErrors.push(`The file has ${parsed.data.length} rows; import at most ${ROSTER_MAX_ROWS} at a time.`);
+  if (numbered.length === 0 && !fileErrors.length) fileErrors.push("The file has a header line but no students.");
+  if (numbered.length > ROSTER_MAX_ROWS) fileErrors.push(`The file has ${numbered.length} rows; import at most ${ROSTER_MAX_ROWS} at a time.`);
   if (fileErrors.length) {
-    return { rows: [], fileErrors, ignoredColumns, summary: { rows: parsed.data.length, withErrors: 0, newStudents: 0, existingStudents: 0, newParents: 0 } };
+    return { rows: [], fileErrors, ignoredColumns, summary: { rows: numbered.length, withErrors: 0, newStudents: 0, existingStudents: 0, newParents: 0 } };
   }
 
   const rows: RosterPreviewRow[] = [];
   const valid: { row: RosterPreviewRow; data: RosterRow }[] = [];
-  parsed.data.forEach((raw, i) => {
-    const line = i + 2;
+  numbered.forEach(({ row: raw, line }) => {
     const result = rosterRowSchema.safeParse(raw);
     const base: RosterPreviewRow = {
       line,

@@ -68,12 +68,13 @@ describe("/api/outbox", () => {
     expect(long.body.error.fieldErrors.to[0]).toMatch(/at most 254/);
   });
 
-  it("shows messages with no school (sent before sign-in, such as resets) but never another school's", async () => {
+  it("shows only the admin's own school's messages: neither another school's nor unscoped ones", async () => {
     const db = testDb();
     db.insert(mailMessages).values({ schoolId: null, from: "x@meniscus.invalid", to: "someone@test.example", subject: "No school", text: "t", raw: "t" }).run();
     db.insert(mailMessages).values({ schoolId: makeSchool(), from: "x@meniscus.invalid", to: "other@test.example", subject: "Other school", text: "t", raw: "t" }).run();
+    db.insert(mailMessages).values({ schoolId, from: "x@meniscus.invalid", to: "mine@test.example", subject: "Ours", text: "t", raw: "t" }).run();
     const list = await call(outbox.GET, apiRequest("/api/outbox"));
-    expect(list.body.messages.map((m: { subject: string }) => m.subject)).toEqual(["No school"]);
+    expect(list.body.messages.map((m: { subject: string }) => m.subject)).toEqual(["Ours"]);
   });
 });
 

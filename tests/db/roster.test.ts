@@ -170,14 +170,7 @@ describe("roster import", () => {
       expect(previewRoster({ actor: admin, classId, csv }).rows[0]).toMatchObject({ errors: [], yearGroup: null, parentName: null, parentEmail: null });
     });
 
-    // Known bug: previewRoster numbers rows as (index among parsed rows) + 2, but papaparse's
-    // skipEmptyLines drops blank rows first, so every row after a blank row (a spreadsheet's empty
-    // separator row exports as ",,,,") gets a line number one too small, and the messages that
-    // point at "line N" point at the wrong row. Fix: take each row's line from its position in the
-    // text (papaparse's step callback gives meta.cursor; count the newlines before it), or parse
-    // with skipEmptyLines: false and drop blank rows after numbering them.
-    // Turn this back into it(...) once fixed.
-    it.fails("numbers rows by their line in the file, even after a blank row", () => {
+    it("numbers rows by their line in the file, even after a blank row", () => {
       const csv = lines("name,email", "Ada Fenn,ada@test.example", ",", "Bram Olsen,bram@test.example", "Ada Fenn,ada@test.example");
       const rows = previewRoster({ actor: admin, classId, csv }).rows;
       expect(rows.map((r) => r.line)).toEqual([2, 4, 5]);
