@@ -7,9 +7,10 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { LogoMark } from "@/components/ui/logo";
 import { PageHeader } from "@/components/ui/page-header";
 import { listClasses } from "@/db/queries/classes";
-import { listChildren } from "@/db/queries/family";
 import { adminOverview } from "@/db/queries/home";
 import { listLabSessions } from "@/db/queries/lab-sessions";
+import { listChildrenProgress } from "@/db/queries/progress";
+import { ChildCard } from "@/components/progress/child-card";
 import { hasRole } from "@/lib/auth/actor";
 import { currentActor } from "@/lib/auth/guards";
 
@@ -34,7 +35,7 @@ export default async function HomePage() {
   if (!actor) return <Landing />;
   const firstName = actor.name.split(" ")[0];
   const classes = hasRole(actor, "teacher", "student") ? listClasses({ actor }) : [];
-  const children = hasRole(actor, "parent") ? listChildren({ actor }) : null;
+  const children = hasRole(actor, "parent") ? listChildrenProgress({ actor }) : null;
   const now = new Date();
   const sessions = hasRole(actor, "teacher", "student") ? listLabSessions({ actor, now }) : [];
   const taughtIds = new Set(classes.filter((c) => c.teachers.some((t) => t.id === actor.userId)).map((c) => c.id));
@@ -74,24 +75,23 @@ export default async function HomePage() {
 
 }
 
-function ParentSection({ items }: { items: ReturnType<typeof listChildren> }) {
+function ParentSection({ items }: { items: ReturnType<typeof listChildrenProgress> }) {
   return (
     <section aria-labelledby="family-heading" className="flex flex-col gap-3">
       <h2 id="family-heading" className="text-xl font-bold">
         Your children
       </h2>
       {items.length ? (
-        <ul className="grid gap-3 sm:grid-cols-2">
-          {items.map((c) => (
-            <li key={c.id}>
-              <Card>
-                <CardTitle as="h3">{c.name}</CardTitle>
-                {c.yearGroup ? <p className="text-muted">Year {c.yearGroup}</p> : null}
-                <p>{c.classes.length ? `Science classes: ${c.classes.map((k) => k.name).join(", ")}` : "Not in a science class yet."}</p>
-              </Card>
-            </li>
-          ))}
-        </ul>
+        <>
+          <p className="max-w-3xl text-muted">Practical science at school: marked work, what is due, and how each skill is going. Only work the teacher has marked and handed back shows here.</p>
+          <ul className="grid gap-4 lg:grid-cols-2">
+            {items.map((c) => (
+              <li key={c.student.id}>
+                <ChildCard progress={c} />
+              </li>
+            ))}
+          </ul>
+        </>
       ) : (
         <EmptyState title="No children are linked to your account yet.">Ask the school office to link your account to your child.</EmptyState>
       )}
