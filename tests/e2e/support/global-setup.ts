@@ -146,7 +146,7 @@ export default async function setup(project: TestProject) {
     const logFile = path.join(runDir, "server.log");
     const out = fs.openSync(logFile, "a");
     server = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(port), "-H", "127.0.0.1"], {
-      env: serverEnv({ ...dirs, PORT: String(port), DATABASE_PATH: databasePath, MAIL_FAKE_PORT: "0", APP_URL: baseURL, NEXTAUTH_URL: baseURL }),
+      env: serverEnv({ ...dirs, PORT: String(port), DATABASE_PATH: databasePath, MAIL_FAKE_PORT: "0", S3_FAKE_PORT: "0", APP_URL: baseURL, NEXTAUTH_URL: baseURL }),
       stdio: ["ignore", out, out],
     });
     fs.closeSync(out);
