@@ -74,8 +74,8 @@ describe("each demo role signs in to its own home page", () => {
         const children = home.section("Your children");
         expect(await children.getByRole("heading", { level: 3 }).allInnerTexts()).toEqual(["Ellis Marchetti", "Noor Marchetti"]);
         const text = await children.innerText();
-        expect(text).toContain("Science classes: 10C Chemistry");
-        expect(text).toContain("Science classes: 12A Chemistry");
+        expect(text).toContain("Science class 10C Chemistry");
+        expect(text).toContain("Science class 12A Chemistry");
         await screenshot(page, "home-parent");
         expectNoErrors(errors);
         await context.close();
