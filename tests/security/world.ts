@@ -108,6 +108,8 @@ export async function buildWorld() {
   const notInSampleWriteUpId = unsampledWriteUpIds[0]!;
   const markedWriteUpId = unsampledWriteUpIds[1]!; // marked, not returned: for "return"
   await returnWriteUp({ actor: teacher, writeUpId: returnedWriteUpId });
+  // The catcher stores the "work returned" e-mails (to Sasha and her parent) just after they are accepted.
+  for (let i = 0; i < 100 && db.select().from(schema.mailMessages).all().length < 2; i++) await new Promise((r) => setTimeout(r, 20));
 
   // Open work: a lab session shared in groups, open now.
   const openSessionId = session(classId, now - DAY, now + 7 * DAY, {
