@@ -40,6 +40,9 @@ export function openDatabase(file: string): Handle {
   sqlite.pragma(`synchronous = ${process.env.DATABASE_SYNCHRONOUS === "FULL" ? "FULL" : "NORMAL"}`);
   const db = drizzle(sqlite, { schema });
   migrate(db, { migrationsFolder: migrationsFolder() });
+  // Maintenance: DATABASE_READONLY=1 serves reading but refuses every write (SQLITE_READONLY,
+  // answered as 503 with a plain message), e.g. while a copy of the file is being taken or checked.
+  if (process.env.DATABASE_READONLY === "1") sqlite.pragma("query_only = ON");
   return { db, sqlite, file };
 }
 
