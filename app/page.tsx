@@ -9,6 +9,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { listClasses } from "@/db/queries/classes";
 import { adminOverview } from "@/db/queries/home";
 import { listLabSessions } from "@/db/queries/lab-sessions";
+import { listSamples } from "@/db/queries/moderation";
 import { listChildrenProgress } from "@/db/queries/progress";
 import { ChildCard } from "@/components/progress/child-card";
 import { hasRole } from "@/lib/auth/actor";
@@ -61,18 +62,41 @@ export default async function HomePage() {
           <ClassCards classes={classes.filter((c) => !c.teachers.some((t) => t.id === actor.userId))} teacherView={false} emptyText="You are not in any classes yet." />
         </section>
       ) : null}
-      {hasRole(actor, "moderator") ? (
-        <section aria-labelledby="moderation-heading">
-          <Card>
-            <CardTitle>Moderation</CardTitle>
-            <p className="text-muted">When a moderation sample is drawn for you to second-mark, it appears here with the work to look at.</p>
-          </Card>
-        </section>
-      ) : null}
+      {hasRole(actor, "moderator") ? <ModeratorSection samples={listSamples({ actor }).filter((x) => x.status === "open")} /> : null}
       {children ? <ParentSection items={children} /> : null}
     </div>
   );
 
+}
+
+function ModeratorSection({ samples }: { samples: ReturnType<typeof listSamples> }) {
+  return (
+    <section aria-labelledby="moderation-heading" className="flex flex-col gap-3">
+      <h2 id="moderation-heading" className="text-xl font-bold">
+        Second marking to do
+      </h2>
+      {samples.length ? (
+        <ul className="grid gap-3 sm:grid-cols-2">
+          {samples.map((x) => (
+            <li key={x.id}>
+              <Card>
+                <CardTitle as="h3">
+                  <Link href={`/moderation/${x.id}`} className="underline-offset-4 hover:underline">
+                    {x.scope}
+                  </Link>
+                </CardTitle>
+                <p className="text-muted">
+                  {x.secondMarked} of {x.items} second-marked{x.secondMarked === x.items ? " · ready to compare with the teacher's marks" : ""}
+                </p>
+              </Card>
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <EmptyState title="No samples waiting for you.">When a moderation sample is drawn for you to second-mark, it appears here with the work to look at.</EmptyState>
+      )}
+    </section>
+  );
 }
 
 function ParentSection({ items }: { items: ReturnType<typeof listChildrenProgress> }) {

@@ -25,9 +25,39 @@ export const ACTION_LABELS: Record<string, string> = {
   "family.unlink": "Removed a family link",
   "roster.import": "Imported a class roster",
   "school.seed": "Set up the demo school",
+  "user.erase": "Deleted a leaver's data",
+  "practical.create": "Wrote a new practical",
+  "practical.new-draft": "Started a new version of a practical",
+  "practical.publish": "Published a practical",
+  "practical.archive": "Archived a practical",
+  "practical.restore": "Brought back an archived practical",
+  "rubric.create": "Wrote a rubric",
+  "rubric.update": "Changed a rubric",
+  "rubric.archive": "Archived a rubric",
+  "lab-session.schedule": "Scheduled a lab session",
+  "lab-session.update": "Changed a lab session",
+  "lab-session.cancel": "Cancelled a lab session",
+  "write-up.safety-acknowledged": "Read the safety notes",
+  "write-up.submit": "Handed in a write-up",
+  "write-up.return": "Handed back marked work",
+  "write-up.reopen": "Reopened a write-up",
+  "mark.save": "Marked a write-up",
+  "mark.save-with-override": "Marked a write-up, changing a check's verdict",
+  "mark.adjust": "Adjusted marks after moderation",
+  "moderation.rule": "Changed the sampling rule",
+  "moderation.draw": "Drew a moderation sample",
+  "moderation.mark": "Second-marked a write-up",
+  "moderation.complete": "Finished a moderation sample",
+  "moderation.add": "Added work to a moderation sample",
+  "moderation.swap": "Swapped work in a moderation sample",
+  "moderation.adjustment-accept": "Accepted a mark adjustment",
+  "moderation.adjustment-reject": "Turned down a mark adjustment",
+  "evidence.add": "Added a photo",
+  "evidence.delete": "Removed a photo",
+  "progress.email-reports": "Sent term reports to families",
 };
 
-export const ENTITY_LABELS: Record<string, string> = { user: "Person", class: "Class", school: "School" };
+export const ENTITY_LABELS: Record<string, string> = { user: "Person", class: "Class", school: "School", "write-up": "Write-up", "lab-session": "Lab session" };
 
 export function entityLabel(type: string): string {
   return ENTITY_LABELS[type] ?? type.replace(/-/g, " ").replace(/^./, (c) => c.toUpperCase());

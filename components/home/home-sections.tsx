@@ -1,5 +1,5 @@
+import { actionLabel } from "@/components/admin/audit-change";
 import Link from "next/link";
-import { Badge } from "@/components/ui/badge";
 import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { formatDateTime } from "@/lib/utils";
@@ -80,8 +80,8 @@ export function AdminSection({
           <ul className="flex flex-col gap-1">
             {overview.recent.map((r) => (
               <li key={r.id} className="flex flex-wrap items-center gap-2">
-                <Badge>{r.action}</Badge>
-                <span>{r.actorName ?? "Meniscus"}</span>
+                <span className="font-semibold">{actionLabel(r.action)}</span>
+                <span className="text-muted">by {r.actorName ?? "Meniscus"}</span>
                 <span className="text-sm text-muted">{formatDateTime(r.at)}</span>
               </li>
             ))}
