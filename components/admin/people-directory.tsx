@@ -18,6 +18,9 @@ import { LoadError, Loading } from "./query-state";
 import { StatusBadge } from "./status-badge";
 import { useDebouncedValue } from "./use-debounced-value";
 
+/** People shown at once; longer lists get page buttons. */
+export const PAGE_SIZE = 50;
+
 export type PeopleFilters = { role: Role | ""; status: string; q: string };
 
 export const STATUS_FILTERS: { value: string; label: string }[] = [
@@ -63,6 +66,13 @@ export function PeopleDirectory({ initial }: { initial: PeopleFilters }) {
   const set = (patch: Partial<PeopleFilters>) => setFilters((f) => ({ ...f, ...patch }));
   const filtered = !!(settled.role || settled.status || settled.q.trim());
   const list = people.data?.people ?? [];
+  const [page, setPage] = useState({ qs, index: 0 });
+  // A new search or filter starts again from the first page.
+  const pageIndex = page.qs === qs ? page.index : 0;
+  const pageCount = Math.max(1, Math.ceil(list.length / PAGE_SIZE));
+  const shownIndex = Math.min(pageIndex, pageCount - 1);
+  const shown = list.slice(shownIndex * PAGE_SIZE, (shownIndex + 1) * PAGE_SIZE);
+  const goTo = (index: number) => setPage({ qs, index });
 
   return (
     <div className="flex flex-col gap-6">
@@ -120,7 +130,9 @@ export function PeopleDirectory({ initial }: { initial: PeopleFilters }) {
         </form>
 
         <p aria-live="polite" className="text-sm text-muted">
-          {people.isPending ? "Loading people…" : people.isError ? "" : `${list.length} ${list.length === 1 ? "person" : "people"}${filtered ? " match" : ""}${people.isFetching ? " (updating…)" : ""}`}
+          {people.isPending || people.isError
+            ? ""
+            : `${list.length} ${list.length === 1 ? "person" : "people"}${filtered ? " match" : ""}${pageCount > 1 ? ` · showing ${shownIndex * PAGE_SIZE + 1}–${shownIndex * PAGE_SIZE + shown.length}` : ""}${people.isFetching ? " (updating…)" : ""}`}
         </p>
 
         {people.isPending ? (
@@ -151,7 +163,7 @@ export function PeopleDirectory({ initial }: { initial: PeopleFilters }) {
               </tr>
             </thead>
             <tbody>
-              {list.map((p) => (
+              {shown.map((p) => (
                 <tr key={p.id} className={p.status === "deactivated" ? "text-muted" : undefined}>
                   <Td className="whitespace-nowrap font-semibold">
                     <Link href={`/admin/people/${p.id}`}>{p.name}</Link>
@@ -168,6 +180,19 @@ export function PeopleDirectory({ initial }: { initial: PeopleFilters }) {
             </tbody>
           </Table>
         )}
+        {pageCount > 1 && !people.isPending && !people.isError ? (
+          <nav aria-label="Pages of the people list" className="flex flex-wrap items-center gap-3">
+            <button type="button" className={buttonClasses("secondary")} disabled={shownIndex === 0} onClick={() => goTo(shownIndex - 1)}>
+              Previous page
+            </button>
+            <span className="text-sm text-muted">
+              Page {shownIndex + 1} of {pageCount}
+            </span>
+            <button type="button" className={buttonClasses("secondary")} disabled={shownIndex >= pageCount - 1} onClick={() => goTo(shownIndex + 1)}>
+              Next page
+            </button>
+          </nav>
+        ) : null}
       </section>
     </div>
   );
