@@ -1,0 +1,409 @@
+/**
+ * Load benchmark (`npm run bench`): builds the production server into .next-bench, seeds a large
+ * invented school into a temporary database, starts `next start` on loopback and measures with
+ * autocannon: write-up autosave from many students at once, calculation checks, the marking bench
+ * and the parent pages; then the same row written with bare better-sqlite3 in the same run, so the
+ * framework's share shows as a ratio; then first-load JavaScript per route from the build.
+ *
+ * Sizes come from the environment (defaults are the full school):
+ *   BENCH_STUDENTS=2000 BENCH_CLASSES=80 BENCH_PRACTICALS=40 BENCH_WRITE_UPS=20000
+ *   BENCH_CONNECTIONS=200 (autosave and checks) BENCH_PAGE_CONNECTIONS=10 BENCH_SECONDS=10
+ *   BENCH_SKIP_BUILD=1 reuses .next-bench; BENCH_KEEP=1 keeps the temporary folder;
+ *   BENCH_OUT=bench-results/latest.md (set BENCH_OUT= to write nothing).
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import fs from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import autocannon from "autocannon";
+import Database from "better-sqlite3";
+import { openDatabase } from "../db/client";
+import { firstLoadJs } from "./bench/first-load-js";
+import { BENCH_PASSWORD, seedBenchSchool, type BenchSchool } from "./bench/seed-school";
+
+const DIST_DIR = ".next-bench";
+const NEXT_BIN = path.join("node_modules", "next", "dist", "bin", "next");
+const num = (name: string, fallback: number) => {
+  const v = Number(process.env[name]);
+  return Number.isFinite(v) && v > 0 ? v : fallback;
+};
+const sizes = { students: num("BENCH_STUDENTS", 2000), classes: num("BENCH_CLASSES", 80), practicals: num("BENCH_PRACTICALS", 40), writeUps: num("BENCH_WRITE_UPS", 20000) };
+const CONNECTIONS = num("BENCH_CONNECTIONS", 200);
+const PAGE_CONNECTIONS = num("BENCH_PAGE_CONNECTIONS", 10);
+const SECONDS = num("BENCH_SECONDS", 10);
+const OUT = process.env.BENCH_OUT ?? path.join("bench-results", "latest.md");
+const log = (msg: string) => console.log(`[bench] ${msg}`);
+
+type Row = { name: string; who: string; connections: number; requests: number; perSecond: number; p50: number; p95: number; p99: number; errors: number; note?: string };
+
+function serverEnv(extra: Record<string, string>): NodeJS.ProcessEnv {
+  const env: NodeJS.ProcessEnv = { ...process.env, NEXT_DIST_DIR: DIST_DIR, NEXT_TELEMETRY_DISABLED: "1", ...extra };
+  Reflect.deleteProperty(env, "NODE_ENV");
+  Reflect.deleteProperty(env, "NODE_OPTIONS");
+  return env;
+}
+
+/** `next build` into .next-bench; Next rewrites tsconfig.json and next-env.d.ts for a non-default folder, so both are put back. */
+async function build() {
+  const kept = ["tsconfig.json", "next-env.d.ts"].map((file) => ({ file, text: fs.existsSync(file) ? fs.readFileSync(file, "utf8") : null }));
+  const started = Date.now();
+  try {
+    const code = await new Promise<number | null>((resolve, reject) => {
+      const child = spawn(process.execPath, [NEXT_BIN, "build"], { env: serverEnv({}), stdio: ["ignore", "pipe", "pipe"] });
+      let output = "";
+      child.stdout.on("data", (d: Buffer) => (output += d.toString()));
+      child.stderr.on("data", (d: Buffer) => (output += d.toString()));
+      child.on("error", reject);
+      child.on("close", (c) => {
+        if (c !== 0) console.error(output.slice(-6000));
+        resolve(c);
+      });
+    });
+    if (code !== 0) throw new Error(`next build failed (exit ${code})`);
+  } finally {
+    for (const { file, text } of kept) {
+      if (text === null) fs.rmSync(file, { force: true });
+      else if (fs.readFileSync(file, "utf8") !== text) fs.writeFileSync(file, text);
+    }
+  }
+  log(`built into ${DIST_DIR} in ${((Date.now() - started) / 1000).toFixed(0)} s`);
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.once("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitUntilServing(url: string, server: ChildProcess, timeoutMs: number) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline && server.exitCode === null) {
+    try {
+      if ((await fetch(url, { redirect: "manual" })).status === 200) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`The server did not answer ${url}.`);
+}
+
+/** Signs in through next-auth's credentials endpoint and returns the Cookie header to send. */
+async function signIn(base: string, email: string): Promise<string> {
+  const jar = new Map<string, string>();
+  const keep = (res: Response) => {
+    for (const c of res.headers.getSetCookie()) {
+      const [pair] = c.split(";");
+      const i = pair!.indexOf("=");
+      jar.set(pair!.slice(0, i), pair!.slice(i + 1));
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  const csrfRes = await fetch(`${base}/api/auth/csrf`);
+  keep(csrfRes);
+  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+  const res = await fetch(`${base}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie(), origin: base },
+    body: new URLSearchParams({ csrfToken, email, password: BENCH_PASSWORD, json: "true", callbackUrl: `${base}/` }),
+  });
+  keep(res);
+  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`Sign-in failed for ${email} (HTTP ${res.status}).`);
+  return cookie();
+}
+
+async function mapLimit<T, R>(items: T[], limit: number, fn: (item: T) => Promise<R>): Promise<R[]> {
+  const out: R[] = new Array(items.length);
+  let next = 0;
+  await Promise.all(
+    Array.from({ length: Math.min(limit, items.length) }, async () => {
+      while (next < items.length) {
+        const i = next++;
+        out[i] = await fn(items[i]!);
+      }
+    }),
+  );
+  return out;
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (!sorted.length) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))]!;
+}
+
+/** Runs autocannon and computes p50/p95/p99 from every response time (autocannon's own summary has no p95). */
+async function measure(name: string, who: string, opts: autocannon.Options): Promise<Row> {
+  const times: number[] = [];
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon({ ...opts, duration: SECONDS }, (err, res) => (err ? reject(err) : resolve(res)));
+    instance.on("response", (_client: unknown, _status: number, _bytes: number, responseTime: number) => times.push(responseTime));
+  });
+  times.sort((a, b) => a - b);
+  const errors = result.errors + result.timeouts + result.non2xx;
+  const row: Row = { name, who, connections: opts.connections ?? 10, requests: result.requests.total, perSecond: result.requests.total / (result.duration || SECONDS), p50: percentile(times, 50), p95: percentile(times, 95), p99: percentile(times, 99), errors };
+  log(`${name}: ${row.perSecond.toFixed(0)} req/s, p50 ${row.p50.toFixed(1)} ms, p95 ${row.p95.toFixed(1)} ms, p99 ${row.p99.toFixed(1)} ms, errors ${errors}${result.non2xx ? ` (non-2xx ${result.non2xx}: ${JSON.stringify(result.statusCodeStats)})` : ""}`);
+  return row;
+}
+
+type Student = BenchSchool["openWriteUps"][number] & { cookie: string; revision: number; head: string; tail: string; saved: number };
+
+/** The save body for a student: their write-up with the observations paragraph changed each time. */
+function saveBody(s: Student, n: number): string {
+  return `{"revision":${s.revision},"content":${s.head}Autosave ${n} at ${Date.now()}${s.tail}}`;
+}
+
+function splitContent(content: unknown): { head: string; tail: string } {
+  const marker = "@@bench-autosave@@";
+  const c = structuredClone(content) as { sections: Record<string, unknown> };
+  c.sections.observations = { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: marker }] }] };
+  const json = JSON.stringify(c);
+  const at = json.indexOf(marker);
+  return { head: json.slice(0, at), tail: json.slice(at + marker.length) };
+}
+
+/** The same write as an accepted autosave, without HTTP or the framework: read the row, check the revision, update it, in one transaction. */
+function bareWrites(dbFile: string, students: Student[]): Row {
+  const db = new Database(dbFile);
+  db.pragma("journal_mode = WAL");
+  db.pragma("synchronous = NORMAL");
+  db.pragma("busy_timeout = 5000");
+  const read = db.prepare("SELECT id, revision, status FROM write_ups WHERE id = ?");
+  const write = db.prepare("UPDATE write_ups SET content = ?, revision = ?, updated_at = ? WHERE id = ? AND revision = ?");
+  const save = db.transaction((s: Student, body: string) => {
+    const row = read.get(s.writeUpId) as { revision: number };
+    if (row.revision !== s.revision) throw new Error("stale");
+    const content = JSON.stringify((JSON.parse(body) as { content: unknown }).content);
+    if (write.run(content, row.revision + 1, Date.now(), s.writeUpId, row.revision).changes !== 1) throw new Error("lost");
+    s.revision = row.revision + 1;
+  });
+  const times: number[] = [];
+  let errors = 0;
+  const end = Date.now() + SECONDS * 1000;
+  let n = 0;
+  while (Date.now() < end) {
+    const s = students[n % students.length]!;
+    const body = saveBody(s, n++);
+    const t0 = process.hrtime.bigint();
+    try {
+      save(s, body);
+    } catch {
+      errors++;
+    }
+    times.push(Number(process.hrtime.bigint() - t0) / 1e6);
+  }
+  db.close();
+  times.sort((a, b) => a - b);
+  return { name: "bare better-sqlite3 write of the same row", who: "this process", connections: 1, requests: times.length, perSecond: times.length / SECONDS, p50: percentile(times, 50), p95: percentile(times, 95), p99: percentile(times, 99), errors };
+}
+
+const ms = (x: number) => (Number.isFinite(x) ? (x < 10 ? x.toFixed(2) : x.toFixed(1)) : "-");
+
+async function main() {
+  const started = new Date();
+  if (process.env.BENCH_SKIP_BUILD === "1" && fs.existsSync(path.join(DIST_DIR, "BUILD_ID"))) log(`reusing the build in ${DIST_DIR}`);
+  else await build();
+
+  const work = fs.mkdtempSync(path.join(os.tmpdir(), "meniscus-bench-"));
+  const dbFile = path.join(work, "meniscus.db");
+  let server: ChildProcess | undefined;
+  try {
+    let t = Date.now();
+    const { db, sqlite } = openDatabase(dbFile);
+    const school = await seedBenchSchool(db, sizes);
+    sqlite.pragma("wal_checkpoint(TRUNCATE)");
+    sqlite.close();
+    const seedSeconds = (Date.now() - t) / 1000;
+    log(`seeded ${JSON.stringify(school.counts)} in ${seedSeconds.toFixed(1)} s (${(fs.statSync(dbFile).size / 1e6).toFixed(0)} MB)`);
+
+    const port = await freePort();
+    const base = `http://127.0.0.1:${port}`;
+    const logFile = path.join(work, "server.log");
+    const out = fs.openSync(logFile, "a");
+    server = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(port), "-H", "127.0.0.1"], {
+      env: serverEnv({ PORT: String(port), DATABASE_PATH: dbFile, MAIL_FAKE_PORT: "0", S3_FAKE_PORT: "0", APP_URL: base, NEXTAUTH_URL: base, MENISCUS_SEED: "off" }),
+      stdio: ["ignore", out, out],
+    });
+    fs.closeSync(out);
+    await waitUntilServing(`${base}/sign-in`, server, 90_000);
+    log(`serving ${base} (log: ${logFile})`);
+
+    t = Date.now();
+    const chosen = school.openWriteUps.slice(0, CONNECTIONS);
+    if (chosen.length < CONNECTIONS) throw new Error(`Only ${chosen.length} open write-ups for ${CONNECTIONS} connections; seed more students.`);
+    const read = new Database(dbFile, { readonly: true });
+    const getContent = read.prepare("SELECT revision, content FROM write_ups WHERE id = ?");
+    const students: Student[] = await mapLimit(chosen, 4, async (s) => {
+      const row = getContent.get(s.writeUpId) as { revision: number; content: string };
+      return { ...s, cookie: await signIn(base, s.email), revision: row.revision, ...splitContent(JSON.parse(row.content)), saved: 0 };
+    });
+    read.close();
+    const teacherCookie = await signIn(base, school.marking.email);
+    const parentCookie = await signIn(base, school.parent.email);
+    log(`signed in ${students.length + 2} people in ${((Date.now() - t) / 1000).toFixed(1)} s`);
+
+    // Warm up each route once so the first compile of each server chunk is not measured.
+    const pages = {
+      marking: `/marking/${school.marking.labSessionId}`,
+      home: "/",
+      child: `/children/${school.parent.childIds[0]}`,
+      writeUp: `/lab-sessions/${students[0]!.labSessionId}/write-up`,
+    };
+    for (const [p, cookie] of [
+      [pages.marking, teacherCookie],
+      [pages.home, parentCookie],
+      [pages.child, parentCookie],
+      [pages.writeUp, students[0]!.cookie],
+    ] as const) {
+      const res = await fetch(`${base}${p}`, { headers: { cookie }, redirect: "manual" });
+      if (res.status !== 200) throw new Error(`${p} answered ${res.status} in the warm-up.`);
+      await res.text();
+    }
+
+    const rows: Row[] = [];
+    let nextStudent = 0;
+    const claim = (context: Record<string, unknown>) => (context.s ??= students[nextStudent++ % students.length]) as Student;
+    let saveNo = 0;
+    rows.push(
+      await measure("autosave write-up (PUT /api/write-ups/[id])", "students, own write-up", {
+        url: base,
+        connections: CONNECTIONS,
+        requests: [
+          {
+            method: "PUT",
+            setupRequest: (req, context) => {
+              const s = claim(context as Record<string, unknown>);
+              return { ...req, path: `/api/write-ups/${s.writeUpId}`, headers: { ...req.headers, cookie: s.cookie, origin: base, "content-type": "application/json" }, body: saveBody(s, saveNo++) };
+            },
+            onResponse: (status, body, context) => {
+              const s = (context as Record<string, unknown>).s as Student;
+              if (status === 200) {
+                s.revision = (JSON.parse(body) as { revision: number }).revision;
+                s.saved++;
+              }
+            },
+          },
+        ],
+      }),
+    );
+    // Every accepted save is in the database: each write-up's revision moved on by exactly the
+    // number of 200 answers its student got.
+    {
+      const check = new Database(dbFile, { readonly: true });
+      const get = check.prepare("SELECT revision FROM write_ups WHERE id = ?").pluck();
+      const mismatched = students.filter((s) => get.get(s.writeUpId) !== s.revision).length;
+      check.close();
+      const accepted = students.reduce((sum, s) => sum + s.saved, 0);
+      rows[0]!.note = `${accepted} saves accepted; ${mismatched === 0 ? "every write-up's stored revision matches its last acknowledged save" : `${mismatched} write-ups do not match their last acknowledged save`}`;
+      log(rows[0]!.note);
+    }
+
+    nextStudent = 0;
+    rows.push(
+      await measure("calculation check (POST /api/write-ups/[id]/checks/[checkId])", "students, own write-up", {
+        url: base,
+        connections: CONNECTIONS,
+        requests: [
+          {
+            method: "POST",
+            setupRequest: (req, context) => {
+              const s = claim(context as Record<string, unknown>);
+              const checkId = s.checkIds[Math.floor(Math.random() * s.checkIds.length)] ?? "none";
+              return { ...req, path: `/api/write-ups/${s.writeUpId}/checks/${checkId}`, headers: { ...req.headers, cookie: s.cookie, origin: base, "content-type": "application/json" }, body: JSON.stringify({ answer: { value: "0.42", unit: "cm³/s" } }) };
+            },
+          },
+        ],
+      }),
+    );
+    const page = (name: string, who: string, p: string, cookie: string) => measure(name, who, { url: `${base}${p}`, connections: PAGE_CONNECTIONS, headers: { cookie } });
+    rows.push(await page(`marking bench page (/marking/[labSessionId], ${school.marking.writeUps} write-ups)`, "teacher", pages.marking, teacherCookie));
+    rows.push(await page("parent home (/)", "parent of two", pages.home, parentCookie));
+    rows.push(await page("child's progress (/children/[studentId])", "parent", pages.child, parentCookie));
+    nextStudent = 0;
+    rows.push(
+      await measure("write-up page (/lab-sessions/[id]/write-up)", "students, own write-up", {
+        url: base,
+        connections: PAGE_CONNECTIONS,
+        requests: [
+          {
+            method: "GET",
+            setupRequest: (req, context) => {
+              const s = claim(context as Record<string, unknown>);
+              return { ...req, path: `/lab-sessions/${s.labSessionId}/write-up`, headers: { ...req.headers, cookie: s.cookie } };
+            },
+          },
+        ],
+      }),
+    );
+
+    // The server stays up but idle while the bare writes run, so they do not share the CPU.
+    const bare = bareWrites(dbFile, students);
+    rows.push(bare);
+    log(`bare better-sqlite3: ${bare.perSecond.toFixed(0)} writes/s, p50 ${ms(bare.p50)} ms, p99 ${ms(bare.p99)} ms`);
+
+    const sizesByRoute = firstLoadJs(DIST_DIR);
+    const report = renderReport({ started, school, seedSeconds, rows, sizesByRoute });
+    console.log(`\n${report}`);
+    if (OUT) {
+      fs.mkdirSync(path.dirname(OUT), { recursive: true });
+      fs.writeFileSync(OUT, report);
+      log(`written to ${OUT}`);
+    }
+  } finally {
+    if (server && server.exitCode === null) {
+      server.kill("SIGTERM");
+      await new Promise((r) => setTimeout(r, 500));
+      if (server.exitCode === null) server.kill("SIGKILL");
+    }
+    if (process.env.BENCH_KEEP === "1") log(`kept ${work}`);
+    else fs.rmSync(work, { recursive: true, force: true });
+  }
+}
+
+function renderReport({ started, school, seedSeconds, rows, sizesByRoute }: { started: Date; school: BenchSchool; seedSeconds: number; rows: Row[]; sizesByRoute: ReturnType<typeof firstLoadJs> }): string {
+  const autosave = rows[0]!;
+  const bare = rows[rows.length - 1]!;
+  const cpu = os.cpus();
+  const lines: string[] = [];
+  lines.push(`# Meniscus load bench`);
+  lines.push("");
+  lines.push(`Run ${started.toISOString()} on ${cpu.length} × ${cpu[0]?.model ?? "CPU"}, Node ${process.version}; load average at the end ${os.loadavg().map((l) => l.toFixed(2)).join(" / ")}.`);
+  lines.push(`The load generator (autocannon) runs on the same machine as the server and shares its CPUs. ${SECONDS} s per row.`);
+  lines.push(`School: ${Object.entries(school.counts).map(([k, v]) => `${v} ${k}`).join(", ")}; seeded in ${seedSeconds.toFixed(1)} s.`);
+  lines.push("");
+  lines.push("| what | as | connections | requests | req/s | p50 ms | p95 ms | p99 ms | errors |");
+  lines.push("|---|---|---:|---:|---:|---:|---:|---:|---:|");
+  for (const r of rows) lines.push(`| ${r.name} | ${r.who} | ${r.connections} | ${r.requests} | ${r.perSecond.toFixed(0)} | ${ms(r.p50)} | ${ms(r.p95)} | ${ms(r.p99)} | ${r.errors} |`);
+  lines.push("");
+  lines.push(`Autosave through HTTP and Next.js vs the bare write: ${(bare.perSecond / autosave.perSecond).toFixed(1)}× the throughput; p50 latency ${ms(autosave.p50)} ms vs ${ms(bare.p50)} ms (${(autosave.p50 / bare.p50).toFixed(0)}×). ${autosave.note ?? ""}.`);
+  lines.push("");
+  const target = (ok: boolean) => (ok ? "met" : "NOT met");
+  const pageRows = rows.slice(2, -1);
+  lines.push(`Targets: autosave ≥ 500 req/s with p99 < 100 ms and no errors — ${target(autosave.perSecond >= 500 && autosave.p99 < 100 && autosave.errors === 0)}; every page p95 < 200 ms — ${target(pageRows.every((r) => r.p95 < 200))}.`);
+  lines.push("");
+  lines.push("## First-load JavaScript per route (gzip)");
+  lines.push("");
+  lines.push("Root chunks plus every entry chunk in the route's client reference manifest, each gzip-compressed, summed; dynamically imported chunks excluded.");
+  lines.push("");
+  lines.push("| route | chunks | raw kB | gzip kB |");
+  lines.push("|---|---:|---:|---:|");
+  for (const r of sizesByRoute) lines.push(`| ${r.route} | ${r.chunks} | ${(r.rawBytes / 1000).toFixed(0)} | ${(r.gzipBytes / 1000).toFixed(1)} |`);
+  const writeUp = sizesByRoute.find((r) => r.route === "/lab-sessions/[id]/write-up");
+  if (writeUp) {
+    lines.push("");
+    lines.push(`Write-up page: ${(writeUp.gzipBytes / 1000).toFixed(1)} kB gzip against a budget of about 250 kB — ${target(writeUp.gzipBytes <= 250_000)}.`);
+  }
+  lines.push("");
+  return lines.join("\n");
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});
