@@ -5,6 +5,7 @@ import { findUserForSignIn, loadActor, recordSignIn } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validation/users";
 import { dummyHash, verifyPassword } from "./password";
 import { assertSignInAllowed, clearSignInFailures, recordFailedSignIn } from "./rate-limit";
+import { appUrl, isProductionDeployment } from "@/lib/config";
 import { authSecret } from "./secret";
 
 /** Error codes the sign-in page turns into messages. */
@@ -19,6 +20,16 @@ function clientIp(headers: Record<string, unknown> | undefined): string {
   return first || String(headers?.["x-real-ip"] ?? "local");
 }
 
+/**
+ * Session cookies are Secure (sent only over HTTPS, with the __Secure- name prefix) on a real
+ * deployment or whenever the app's address is https; always httpOnly and SameSite=Lax.
+ */
+export function secureCookies(): boolean {
+  return isProductionDeployment() || appUrl().startsWith("https://");
+}
+
+export const SESSION_COOKIE = { plain: "next-auth.session-token", secure: "__Secure-next-auth.session-token" } as const;
+
 let options: NextAuthOptions | undefined;
 
 export function authOptions(): NextAuthOptions {
@@ -26,6 +37,13 @@ export function authOptions(): NextAuthOptions {
   options = {
     secret: authSecret(),
     session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+    useSecureCookies: secureCookies(),
+    cookies: {
+      sessionToken: {
+        name: secureCookies() ? SESSION_COOKIE.secure : SESSION_COOKIE.plain,
+        options: { httpOnly: true, sameSite: "lax", path: "/", secure: secureCookies() },
+      },
+    },
     pages: { signIn: "/sign-in", error: "/sign-in" },
     providers: [
       CredentialsProvider({
