@@ -14,6 +14,7 @@ import { formatDateTime } from "@/lib/utils";
 import type { AuditPage, PersonDetail } from "./api-types";
 import { AuditTable } from "./audit-list";
 import { ConfirmAction } from "./confirm-action";
+import { EraseLeaverCard } from "./erase-leaver";
 import { FamilyLinks } from "./family-links";
 import { PersonDetailsForm } from "./person-details-form";
 import { errorMessage, LoadError, Loading } from "./query-state";
@@ -239,6 +240,7 @@ export function PersonDetailView({ id, isSelf }: { id: string; isSelf: boolean }
         </Card>
       ) : null}
       <HistoryCard personId={person.id} />
+      <EraseLeaverCard person={person} isSelf={isSelf} />
     </div>
   );
 }

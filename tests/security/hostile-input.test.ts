@@ -125,7 +125,7 @@ function storedSomewhere(value: string): boolean {
 }
 /** "table.column" of every column Drizzle keeps as JSON. */
 const JSON_COLUMNS = new Set(
-  Object.values(schema)
+  (Object.values(schema) as unknown[])
     .filter((v): v is SQLiteTable => !!v && typeof v === "object" && Symbol.for("drizzle:IsDrizzleTable") in v)
     .flatMap((t) => {
       const c = getTableConfig(t);

@@ -29,7 +29,7 @@ const one = <T>(query: string, ...args: unknown[]) => getHandle().sqlite.prepare
 
 async function download(query = "") {
   const res = await exportRoute.GET(apiRequest(`/api/me/export${query}`), { params: Promise.resolve({}) });
-  if (res.status !== 200) return { status: res.status, body: await res.json(), files: {}, data: null as never };
+  if (res.status !== 200) return { status: res.status, body: await res.json(), files: {} as Record<string, Uint8Array>, data: null as never };
   const files = unzipSync(new Uint8Array(await res.arrayBuffer()));
   const data = JSON.parse(strFromU8(files["personal-data.json"]!));
   return { status: res.status, headers: res.headers, files, data, text: strFromU8(files["personal-data.json"]!) };
