@@ -108,6 +108,49 @@ function allRowCounts(): Record<string, number> {
   return Object.fromEntries(tables.map((t) => [t, (sqlite.prepare(`SELECT count(*) AS n FROM "${t}"`).get() as { n: number }).n]));
 }
 
+describe("cross-site requests and server actions", () => {
+  const STATE_CHANGING = Object.keys(MATRIX).filter((k) => /^(POST|PUT|PATCH|DELETE) /.test(k) && !k.includes("/api/auth/"));
+
+  it.each(STATE_CHANGING)("%s refuses a request from another site (403), even from an allowed caller, and stores nothing", async (key) => {
+    const entry = MATRIX[key]!;
+    const caller = entry.allow.find((c) => !c.startsWith("x-")) ?? "signed-out";
+    for (const headers of [{ origin: "https://elsewhere.example" }, { "sec-fetch-site": "cross-site" }, { origin: "null" }]) {
+      restore(image);
+      signInAs(actorFor(world, caller));
+      const spec = await entry.req(world, caller);
+      if (spec instanceof NextRequest) throw new Error(key);
+      const { req, params } = buildRequest(key, spec);
+      const hostile = new NextRequest(req.url, { method: req.method, headers: { ...Object.fromEntries(req.headers), ...headers }, body: spec.body !== undefined ? JSON.stringify(spec.body) : undefined });
+      const before = allRowCounts();
+      const res = await routes.get(key)!(hostile, { params: Promise.resolve(params) });
+      expect(res.status, `${key} ${JSON.stringify(headers)}`).toBe(403);
+      expect((await res.json()).error.message).toMatch(/other sites/);
+      expect(allRowCounts()).toEqual(before);
+    }
+  });
+
+  it("next-auth's own sign-in refuses a post without its CSRF token", async () => {
+    restore(image);
+    const req = new NextRequest("http://localhost:3000/api/auth/callback/credentials", {
+      method: "POST",
+      headers: { host: "localhost:3000", "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ email: world.people.student.email, password: "correct-horse-lab-notebook", json: "true" }).toString(),
+    });
+    setCurrentRequest(req);
+    const res = await routes.get("POST /api/auth/[...nextauth]")!(req, { params: Promise.resolve({ nextauth: ["callback", "credentials"] }) });
+    expect(res.headers.getSetCookie().some((c) => c.includes("session-token"))).toBe(false);
+    expect(JSON.parse(await res.text()).url).toMatch(/csrf=true/);
+  });
+
+  it("has no server actions (a \"use server\" module would need rows here too)", () => {
+    const files = import.meta.glob<string>(["../../app/**/*.{ts,tsx}", "../../components/**/*.{ts,tsx}", "../../lib/**/*.{ts,tsx}"], { query: "?raw", import: "default", eager: true });
+    const actions = Object.entries(files)
+      .filter(([, text]) => /^\s*["']use server["']/m.test(text))
+      .map(([file]) => file);
+    expect(actions, "server actions are public endpoints: add each to the matrix before allowing it here").toEqual([]);
+  });
+});
+
 function req_path_segments(req: NextRequest): string[] {
   return req.nextUrl.pathname.replace(/^\/api\/auth\//, "").split("/");
 }
