@@ -27,8 +27,54 @@ function SecondMarking({ m }: { m: SampleItemJson["moderation"] }) {
  */
 export function SampleItemsTable({ sampleId, items, blind, showClass, youAreModerator }: { sampleId: string; items: SampleItemJson[]; blind: boolean; showClass: boolean; youAreModerator: boolean }) {
   const who = youAreModerator ? "you finish" : "the moderator finishes";
+  const teacherTotal = (it: SampleItemJson) =>
+    it.teacherTotal !== null ? (
+      <span className="tabular-nums">{formatMarks(it.teacherTotal)}</span>
+    ) : blind ? (
+      <span className="inline-flex items-start gap-1 text-sm text-muted">
+        <HiddenShape />
+        <span>Hidden until {who} second-marking this piece</span>
+      </span>
+    ) : (
+      <span className="text-muted">—</span>
+    );
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-surface">
+    <>
+      {/* On a phone: one card per piece, so nothing scrolls sideways. */}
+      <ul className="flex flex-col gap-2 md:hidden" aria-label="Work in this sample">
+        {items.map((it) => (
+          <li key={it.writeUpId} data-item-card={it.writeUpId} className="flex flex-col gap-1 rounded-lg border border-line bg-surface p-3">
+            <p className="flex flex-wrap items-baseline justify-between gap-x-3">
+              <Link href={`/moderation/${sampleId}/${it.writeUpId}`} className="font-semibold">
+                {it.studentName}
+              </Link>
+              <SecondMarking m={it.moderation} />
+            </p>
+            <p className="text-sm text-muted">
+              {showClass ? `${it.className} · ` : ""}Marked by {it.markerName ?? "someone not recorded"}
+            </p>
+            <p className="text-sm">
+              <span className="font-semibold">{ORIGIN_WORDS[it.origin]}</span>
+              {it.note ? <span className="text-muted">: {it.note}</span> : null}
+            </p>
+            <dl className="grid grid-cols-3 gap-2 text-sm">
+              <div>
+                <dt className="text-muted">Teacher&apos;s total</dt>
+                <dd>{teacherTotal(it)}</dd>
+              </div>
+              <div>
+                <dt className="text-muted">Second total</dt>
+                <dd className="tabular-nums">{it.moderation ? formatMarks(it.moderation.total) : <span className="text-muted">—</span>}</dd>
+              </div>
+              <div>
+                <dt className="text-muted">Difference</dt>
+                <dd className={cn("tabular-nums", it.difference !== null && it.difference !== 0 && "font-semibold")}>{it.difference !== null ? signed(it.difference, 0) : <span className="text-muted">—</span>}</dd>
+              </div>
+            </dl>
+          </li>
+        ))}
+      </ul>
+    <div className="hidden overflow-x-auto rounded-lg border border-line bg-surface md:block">
       <table className="w-full border-collapse text-left text-[0.97rem]">
         <caption className="sr-only">Work in this sample</caption>
         <thead>
@@ -57,18 +103,7 @@ export function SampleItemsTable({ sampleId, items, blind, showClass, youAreMode
               <td className="border-b border-line px-3 py-2">
                 <SecondMarking m={it.moderation} />
               </td>
-              <td className="border-b border-line px-3 py-2">
-                {it.teacherTotal !== null ? (
-                  <span className="tabular-nums">{formatMarks(it.teacherTotal)}</span>
-                ) : blind ? (
-                  <span className="inline-flex items-start gap-1 text-sm text-muted">
-                    <HiddenShape />
-                    <span>Hidden until {who} second-marking this piece</span>
-                  </span>
-                ) : (
-                  <span className="text-muted">—</span>
-                )}
-              </td>
+              <td className="border-b border-line px-3 py-2">{teacherTotal(it)}</td>
               <td className="border-b border-line px-3 py-2 tabular-nums">{it.moderation ? formatMarks(it.moderation.total) : <span className="text-muted">—</span>}</td>
               <td className={cn("border-b border-line px-3 py-2 tabular-nums", it.difference !== null && it.difference !== 0 && "font-semibold")}>
                 {it.difference !== null ? signed(it.difference, 0) : <span className="text-muted">—</span>}
@@ -78,5 +113,6 @@ export function SampleItemsTable({ sampleId, items, blind, showClass, youAreMode
         </tbody>
       </table>
     </div>
+    </>
   );
 }

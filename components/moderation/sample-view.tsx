@@ -151,7 +151,9 @@ export function SampleView({ initial }: { initial: SampleJson }) {
             {finished < active.length ? `${active.length - finished} piece${active.length - finished === 1 ? " is" : "s are"} not second-marked yet. ` : "Every piece is second-marked. "}
             Finishing closes the sample: nothing more can be second-marked, added or swapped.
           </p>
-          <ConfirmAction label="Finish this sample" variant="secondary" question="Finish this sample? Second marking, adding and swapping stop; the sample stays for the record." confirmLabel="Finish it" busy={complete.isPending} onConfirm={() => complete.mutate()} />
+          <div>
+            <ConfirmAction label="Finish this sample" variant="secondary" question="Finish this sample? Second marking, adding and swapping stop; the sample stays for the record." confirmLabel="Finish it" busy={complete.isPending} onConfirm={() => complete.mutate()} />
+          </div>
         </div>
       ) : null}
     </div>
