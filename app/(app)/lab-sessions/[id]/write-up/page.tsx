@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
 import { RichTextView } from "@/components/editor/rich-text-view";
+import { ReturnedMarks } from "@/components/marking/returned-marks";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { PageHeader } from "@/components/ui/page-header";
@@ -121,6 +122,7 @@ export default async function WriteUpPage({ params }: PageProps<"/lab-sessions/[
           <p>This write-up was not handed in, and it can no longer be changed. Talk to your teacher.</p>
         </Alert>
       )}
+      {w.status === "returned" && view.mark ? <ReturnedMarks mark={view.mark} practical={view.practical.content} /> : null}
       <KeptChangesNotice
         writeUpId={w.id}
         server={{ revision: data.writeUp.revision, updatedAt: data.writeUp.updatedAt, content: data.writeUp.content, tables: data.tables, groupRevision: data.group?.revision ?? null }}
