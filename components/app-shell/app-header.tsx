@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { ROLE_LABELS, type Role } from "@/lib/roles";
 import { Logo } from "@/components/ui/logo";
+import { NavItem } from "./nav-item";
 import { linksFor } from "./nav-links";
 import { SignOutButton } from "./sign-out-button";
 
@@ -11,19 +12,17 @@ export function AppHeader({ person }: { person: { name: string; roles: readonly 
       <a href="#main" className="skip-link">
         Skip to main content
       </a>
-      <div className="mx-auto flex max-w-6xl items-center justify-between gap-4 px-4 py-3">
+      <div className="mx-auto flex max-w-6xl items-center justify-between gap-3 px-4 py-3">
         <Link href="/" className="text-ink no-underline" aria-label="Meniscus home">
           <Logo />
         </Link>
         {person ? (
           <>
             <nav aria-label="Main" className="hidden flex-1 md:block">
-              <ul className="flex flex-wrap items-center gap-1">
+              <ul className="flex flex-wrap items-center gap-x-0.5">
                 {links.map((l) => (
                   <li key={l.href}>
-                    <Link href={l.href} className="rounded-md px-3 py-2 font-semibold text-ink no-underline hover:bg-brand-soft hover:text-brand-strong">
-                      {l.label}
-                    </Link>
+                    <NavItem href={l.href} label={l.label} className="block rounded-md px-2 py-2 font-semibold hover:bg-brand-soft hover:text-brand-strong xl:px-2.5" />
                   </li>
                 ))}
               </ul>
@@ -44,9 +43,7 @@ export function AppHeader({ person }: { person: { name: string; roles: readonly 
                   <ul className="flex flex-col">
                     {links.map((l) => (
                       <li key={l.href}>
-                        <Link href={l.href} className="block rounded-md px-2 py-2 font-semibold text-ink no-underline hover:bg-brand-soft">
-                          {l.label}
-                        </Link>
+                        <NavItem href={l.href} label={l.label} className="block rounded-md px-2 py-2 font-semibold hover:bg-brand-soft" />
                       </li>
                     ))}
                     <li>
