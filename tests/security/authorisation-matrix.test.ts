@@ -114,7 +114,8 @@ describe("cross-site requests and server actions", () => {
   it.each(STATE_CHANGING)("%s refuses a request from another site (403), even from an allowed caller, and stores nothing", async (key) => {
     const entry = MATRIX[key]!;
     const caller = entry.allow.find((c) => !c.startsWith("x-")) ?? "signed-out";
-    for (const headers of [{ origin: "https://elsewhere.example" }, { "sec-fetch-site": "cross-site" }, { origin: "null" }]) {
+    const hostileHeaders: Record<string, string>[] = [{ origin: "https://elsewhere.example" }, { "sec-fetch-site": "cross-site" }, { origin: "null" }];
+    for (const headers of hostileHeaders) {
       restore(image);
       signInAs(actorFor(world, caller));
       const spec = await entry.req(world, caller);
