@@ -85,6 +85,12 @@ const FIELD_LABELS: Record<string, string> = {
   people: "People",
   classes: "Classes",
   domain: "E-mail domain",
+  writeUps: "Write-ups deleted",
+  photos: "Photos deleted",
+  classPlaces: "Class places removed",
+  familyLinks: "Family links removed",
+  emails: "Kept e-mails deleted",
+  erased: "Personal details removed",
 };
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;

@@ -7,10 +7,11 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Field, Input } from "@/components/ui/field";
+import { PageHeader } from "@/components/ui/page-header";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
 import type { PersonDetail } from "./api-types";
 
-type Erased = { erased: true; writeUps: number; photos: number; classPlaces: number; familyLinks: number; emails: number };
+export type Erased = { erased: true; writeUps: number; photos: number; classPlaces: number; familyLinks: number; emails: number };
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
@@ -18,37 +19,20 @@ const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? o
  * "Delete a leaver's data" for a student or parent: cannot be undone, so the admin types the
  * person's name first. Staff are deactivated instead (their marking belongs to the record).
  */
-export function EraseLeaverCard({ person, isSelf }: { person: PersonDetail; isSelf: boolean }) {
+export function EraseLeaverCard({ person, isSelf, onErased }: { person: PersonDetail; isSelf: boolean; onErased: (result: Erased) => void }) {
   const qc = useQueryClient();
   const [name, setName] = useState("");
   const [fieldError, setFieldError] = useState<string[] | undefined>();
   const erase = useMutation({
     mutationFn: () => fetchJson<Erased>(`/api/users/${encodeURIComponent(person.id)}/personal-data`, { method: "DELETE", json: { confirmName: name } }),
-    onSuccess: () => {
+    onSuccess: (result) => {
+      onErased(result);
       qc.removeQueries({ queryKey: ["person", person.id] });
       void qc.invalidateQueries({ queryKey: ["people"] });
     },
     onError: (e) => setFieldError(e instanceof ApiError ? e.fieldErrors.confirmName : undefined),
   });
   if (isSelf || person.roles.some((r) => r !== "student" && r !== "parent")) return null;
-
-  if (erase.isSuccess) {
-    const r = erase.data;
-    return (
-      <Card>
-        <CardTitle>Leaver&apos;s data deleted</CardTitle>
-        <div aria-live="polite" className="flex flex-col gap-2">
-          <Alert tone="good">
-            {person.name}&apos;s account and data have been deleted: {plural(r.writeUps, "write-up")}, {plural(r.photos, "photo")}, {plural(r.classPlaces, "class place")},{" "}
-            {plural(r.familyLinks, "family link")} and {plural(r.emails, "kept e-mail")}. The audit trail records that you did this, with their id only.
-          </Alert>
-          <p>
-            <Link href="/admin/people">← Back to all people</Link>
-          </p>
-        </div>
-      </Card>
-    );
-  }
 
   const matches = name.trim().toLowerCase() === person.name.trim().toLowerCase();
   return (
@@ -81,5 +65,23 @@ export function EraseLeaverCard({ person, isSelf }: { person: PersonDetail; isSe
         </form>
       </div>
     </Card>
+  );
+}
+
+/** What replaces the person's page once their data is deleted. */
+export function ErasedNotice({ name, result }: { name: string; result: Erased }) {
+  return (
+    <div className="flex flex-col gap-4">
+      <p>
+        <Link href="/admin/people">← All people</Link>
+      </p>
+      <div role="status">
+        <PageHeader eyebrow="Person" title={`${name}'s data has been deleted`} />
+        <Alert tone="good">
+          Deleted: {plural(result.writeUps, "write-up")}, {plural(result.photos, "photo")}, {plural(result.classPlaces, "class place")}, {plural(result.familyLinks, "family link")},{" "}
+          {plural(result.emails, "kept e-mail")} and the account. The audit trail records that you did this and when, with their id only.
+        </Alert>
+      </div>
+    </div>
   );
 }

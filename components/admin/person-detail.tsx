@@ -14,7 +14,7 @@ import { formatDateTime } from "@/lib/utils";
 import type { AuditPage, PersonDetail } from "./api-types";
 import { AuditTable } from "./audit-list";
 import { ConfirmAction } from "./confirm-action";
-import { EraseLeaverCard } from "./erase-leaver";
+import { EraseLeaverCard, ErasedNotice, type Erased } from "./erase-leaver";
 import { FamilyLinks } from "./family-links";
 import { PersonDetailsForm } from "./person-details-form";
 import { errorMessage, LoadError, Loading } from "./query-state";
@@ -190,12 +190,14 @@ function HistoryCard({ personId }: { personId: string }) {
 
 /** One person's admin page. */
 export function PersonDetailView({ id, isSelf }: { id: string; isSelf: boolean }) {
-  const query = useQuery({ queryKey: ["person", id], queryFn: () => fetchJson<{ person: PersonDetail }>(`/api/users/${encodeURIComponent(id)}`) });
+  const [erased, setErased] = useState<{ name: string; result: Erased } | null>(null);
+  const query = useQuery({ queryKey: ["person", id], queryFn: () => fetchJson<{ person: PersonDetail }>(`/api/users/${encodeURIComponent(id)}`), enabled: !erased });
   const back = (
     <p className="mb-2">
       <Link href="/admin/people">← All people</Link>
     </p>
   );
+  if (erased) return <ErasedNotice name={erased.name} result={erased.result} />;
   if (query.isPending) return <>{back}<Loading label="Loading this person…" /></>;
   if (query.isError) return <>{back}<LoadError error={query.error} what="this person" onRetry={() => query.refetch()} /></>;
   const person = query.data.person;
@@ -240,7 +242,7 @@ export function PersonDetailView({ id, isSelf }: { id: string; isSelf: boolean }
         </Card>
       ) : null}
       <HistoryCard personId={person.id} />
-      <EraseLeaverCard person={person} isSelf={isSelf} />
+      <EraseLeaverCard person={person} isSelf={isSelf} onErased={(result) => setErased({ name: person.name, result })} />
     </div>
   );
 }
