@@ -111,8 +111,9 @@ function Report({ data, chart }: { data: TermReportData; chart: Buffer | null })
         {data.coming.length ? (
           <>
             <Text style={styles.h2}>Coming up</Text>
-            {data.coming.map((c) => (
-              <Text key={c.title + c.dueAt.toISOString()}>
+            {data.coming.map((c, i) => (
+              // Two lab sessions of one practical can be due at the same moment: the position keeps keys unique.
+              <Text key={`${i}-${c.title}`}>
                 {c.title}: due {date(c.dueAt)}
               </Text>
             ))}
