@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: [".next/**", ".next-test/**", "node_modules/**", "data/**", "tests/.tmp/**", "next-env.d.ts", "screenshots/**"],
+    ignores: [".next/**", ".next-*/**", "node_modules/**", "data/**", "tests/.tmp/**", "next-env.d.ts", "screenshots/**"],
   },
   {
     // The calculation engine is pure TypeScript: no framework, database or Node built-ins.
