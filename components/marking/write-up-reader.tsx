@@ -3,6 +3,7 @@
 import dynamic from "next/dynamic";
 import type { ReactNode } from "react";
 import { RichTextView } from "@/components/editor/rich-text-view";
+import { EvidenceGallery } from "@/components/evidence/evidence-gallery";
 import { ResultsGrid } from "@/components/write-up/results-grid";
 import type { RichTextDoc } from "@/lib/validation/rich-text";
 import { formatDateTime } from "@/lib/utils";
@@ -61,6 +62,9 @@ export function WriteUpReader({ view, comment }: { view: ReaderViewJson; comment
       <Part id="observations" title="Observations">
         <Text doc={content.sections.observations} />
         {slot("observations", "the observations")}
+      </Part>
+      <Part id="photos" title="Photos">
+        <EvidenceGallery target={{ writeUpId: view.writeUp.id }} label="The student's photos" empty={<p className="text-muted italic">No photos added.</p>} />
       </Part>
       <Part id="results" title="Results">
         {practical.tables.length === 0 ? <p className="text-muted">This practical has no results table.</p> : null}

@@ -4,6 +4,7 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useState, type ReactNode } from "react";
 import { RichEditorLazy } from "@/components/editor/rich-editor-lazy";
+import { EvidencePanel } from "@/components/evidence/evidence-panel";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
@@ -107,6 +108,7 @@ export function WriteUpEditor({ initialView, practicalIntro, safetyDetails, labe
   });
   const practical = view.practical.content;
   const group = initialView.group;
+  const evidenceTarget = useMemo(() => ({ writeUpId: id }), [id]);
   const enabled = view.canEdit;
 
   const main = useAutosave<WriteUpContent>({
@@ -228,6 +230,9 @@ export function WriteUpEditor({ initialView, practicalIntro, safetyDetails, labe
     return () => window.removeEventListener("beforeunload", warn);
   }, [unsaved]);
 
+  // Photos still uploading hold up handing in (a handed-in write-up takes no more).
+  const [photosBusy, setPhotosBusy] = useState(0);
+
   // Handing in.
   const [handInBusy, setHandInBusy] = useState(false);
   const [handInError, setHandInError] = useState<string | null>(null);
@@ -285,6 +290,7 @@ export function WriteUpEditor({ initialView, practicalIntro, safetyDetails, labe
     saveProblem
       ? { ok: false, blocking: true, text: `Your work must be saved first. ${saveBlockedReason(saveProblem)}` }
       : { ok: true, blocking: true, text: unsaved ? "Your latest changes are saved first when you hand in." : "Everything is saved." },
+    ...(photosBusy ? [{ ok: false, blocking: true, text: `Wait for your photos to finish uploading (${photosBusy} still going).` }] : []),
     ...(tableIssues ? [{ ok: false, blocking: false, text: `Your results have ${tableIssues} reading${tableIssues === 1 ? "" : "s"} to fix.` }] : []),
     ...(emptySections.length ? [{ ok: false, blocking: false, text: `Still empty: ${emptySections.join(", ")}.` }] : []),
     ...(notChecked.length ? [{ ok: false, blocking: false, text: `Not checked yet: ${notChecked.join("; ")}.` }] : []),
@@ -294,6 +300,7 @@ export function WriteUpEditor({ initialView, practicalIntro, safetyDetails, labe
   const nav = [
     { id: "safety", label: "Safety first" },
     ...SECTIONS.slice(0, 2).map((s) => ({ id: s.key, label: s.label })),
+    { id: "photos", label: "Photos" },
     { id: "results", label: "Results" },
     ...(practical.graphs.length ? [{ id: "graphs", label: "Graphs" }] : []),
     ...(practical.checks.length ? [{ id: "calculations", label: "Calculations" }] : []),
@@ -484,6 +491,10 @@ export function WriteUpEditor({ initialView, practicalIntro, safetyDetails, labe
 
         <Section id="observations" title="Observations" prompt={SECTION_PROMPTS.observations}>
           {sectionEditor("observations")}
+        </Section>
+
+        <Section id="photos" title="Photos" prompt="Photograph your apparatus, colour changes or results, and say in a caption what each photo shows.">
+          <EvidencePanel target={evidenceTarget} editable={enabled} onBusyChange={setPhotosBusy} empty={<p className="text-muted">No photos yet.</p>} />
         </Section>
 
         <Section id="results" title="Results">

@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
 import { RichTextView } from "@/components/editor/rich-text-view";
+import { EvidenceGallery } from "@/components/evidence/evidence-gallery";
 import { boundGraph } from "./check-words";
 import { SECTIONS } from "./compare";
 import { GraphPanelLazy } from "./lazy-panels";
@@ -39,6 +40,9 @@ export function WriteUpReadOnly({ view, audience, safetyConfirmedText }: { view:
           {section(s.key)}
         </Part>
       ))}
+      <Part id="photos" title="Photos">
+        <EvidenceGallery target={{ writeUpId: view.writeUp.id }} label={audience === "staff" ? "The student's photos" : "Your photos"} empty={nothing(audience === "staff" ? "The student added no photos." : "You added no photos.")} />
+      </Part>
       <Part id="results" title="Results">
         {view.group ? (
           <p>

@@ -14,6 +14,7 @@ import { PreviewStoreContext, type PreviewInput } from "./check-preview";
 import { ConflictPanel } from "./conflict-panel";
 import { EditorErrorsContext } from "./fields";
 import { ProblemsSummary } from "./problems-summary";
+import { ReferencePhotos } from "./reference-photos";
 import { SaveStatusText } from "./save-status";
 import { SectionNav } from "./section-nav";
 import { AimSection, MethodSection } from "./sections/aim-section";
@@ -271,6 +272,7 @@ export function PracticalEditor({ version, topics }: { version: EditableVersion;
                 {section === "details" ? <DetailsSection draft={draft} change={trackedChange} topics={topics} /> : null}
                 {section === "aim" ? <AimSection draft={draft} change={trackedChange} generation={saver.generation} /> : null}
                 {section === "method" ? <MethodSection draft={draft} change={trackedChange} generation={saver.generation} /> : null}
+                {section === "method" ? <ReferencePhotos practicalId={version.practicalId} /> : null}
                 {section === "variables" ? <VariablesSection draft={draft} change={trackedChange} /> : null}
                 {section === "safety" ? <SafetySection draft={draft} change={trackedChange} /> : null}
                 {section === "tables" ? <TablesSection draft={draft} change={trackedChange} /> : null}

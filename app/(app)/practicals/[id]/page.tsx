@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { EvidenceGallery } from "@/components/evidence/evidence-gallery";
 import { EditDraftButton, PracticalManageActions } from "@/components/practicals/library/practical-actions";
 import { PracticalView } from "@/components/practicals/practical-view";
 import { sessionsLabel } from "@/components/practicals/status";
@@ -84,6 +85,17 @@ export default async function PracticalOverviewPage({ params }: PageProps<"/prac
             ))}
           </tbody>
         </Table>
+      </section>
+
+      <section aria-labelledby="photos-heading" className="flex flex-col gap-3">
+        <h2 id="photos-heading" className="text-xl font-bold">
+          Reference photos
+        </h2>
+        <EvidenceGallery
+          target={{ practicalId: p.id }}
+          label="Reference photos"
+          empty={<p className="text-muted">{p.canEdit ? "None yet. Add them in the editor, under Method." : "None yet."}</p>}
+        />
       </section>
 
       {shown ? (

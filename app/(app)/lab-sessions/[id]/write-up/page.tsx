@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
 import { RichTextView } from "@/components/editor/rich-text-view";
+import { EvidenceGallery } from "@/components/evidence/evidence-gallery";
 import { ReturnedMarks } from "@/components/marking/returned-marks";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
@@ -19,7 +20,7 @@ import { formatWhen, toViewJson } from "../../../write-ups/view-json";
 
 export const metadata: Metadata = { title: "Your write-up" };
 
-function PracticalIntro({ content }: { content: PracticalContent }) {
+function PracticalIntro({ practicalId, content }: { practicalId: string; content: PracticalContent }) {
   return (
     <div className="flex flex-col gap-2">
       {content.aim.trim() ? (
@@ -31,6 +32,7 @@ function PracticalIntro({ content }: { content: PracticalContent }) {
       <RichTextView doc={content.introduction} headingOffset={2} />
       <h3 className="font-bold">Method</h3>
       <RichTextView doc={content.method} headingOffset={2} empty={<p className="text-muted">Your teacher has not written a method.</p>} />
+      <EvidenceGallery target={{ practicalId }} label="Photos from your teacher" heading={<h3 className="font-bold">Photos from your teacher</h3>} empty={null} />
     </div>
   );
 }
@@ -101,7 +103,7 @@ export default async function WriteUpPage({ params }: PageProps<"/lab-sessions/[
         {header}
         <WriteUpEditor
           initialView={data}
-          practicalIntro={<PracticalIntro content={view.practical.content} />}
+          practicalIntro={<PracticalIntro practicalId={view.practical.id} content={view.practical.content} />}
           safetyDetails={<SafetyDetails safety={view.practical.content.safety} />}
           labels={{ due: `Due ${formatWhen(s.dueAt)}.`, lateRule: rule, lateNow: rule !== null }}
         />
