@@ -46,7 +46,7 @@ export function boot(): Promise<void> {
     setInterval(() => void sweepOrphanUploads().catch((e) => console.error("[meniscus] orphan sweep failed", e)), 30 * 60 * 1000).unref();
     if (!hasAnySchool(db) && process.env.MENISCUS_SEED !== "off") {
       const res = await seedDemoSchool(db);
-      console.log(`[meniscus] seeded the demo school (${res.userIds.size} people, ${res.classIds.size} classes)`);
+      console.log(`[meniscus] seeded the demo school (${res.userIds.size} people, ${res.classIds.size} classes, ${res.photos} photos)`);
     }
   })();
   return g.__meniscusBooted;

@@ -2,6 +2,7 @@ import { eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import type { Db } from "../client";
 import { auditLog, checkAttempts, classes, classStudents, classTeachers, invitations, labSessions, marks, moderationItems, moderationMarks, moderationSamples, parentLinks, practicals, practicalVersions, rubrics, schools, userRoles, users, writeUps } from "../schema";
+import { seedDemoEvidence } from "./evidence";
 import { DEMO_PRACTICALS } from "./practicals";
 import { seedMarkFor } from "./marks";
 import { writeUpFor, type Scenario } from "./write-ups";
@@ -10,7 +11,15 @@ import { rubricMaxOf } from "./rubric-max";
 import { hashToken, newToken } from "@/lib/tokens";
 import { ACADEMIC_YEAR, CLASSES, DEMO_DOMAIN, DEMO_PASSWORD, DEMO_SCHOOL, PARENTS, STAFF, demoStudents, type DemoPerson } from "./people";
 
-export type SeedResult = { schoolId: string; userIds: Map<string, string>; classIds: Map<string, string>; practicalVersionIds: Map<string, string>; labSessionIds: Map<string, string> };
+export type SeedResult = {
+  schoolId: string;
+  userIds: Map<string, string>;
+  classIds: Map<string, string>;
+  practicalVersionIds: Map<string, string>;
+  labSessionIds: Map<string, string>;
+  /** Demo photos stored (0 when photo storage was not there: the seed goes on without them). */
+  photos: number;
+};
 
 /** True when the database already holds a school (the demo is seeded once, on first start). */
 export function hasAnySchool(db: Db): boolean {
@@ -19,11 +28,17 @@ export function hasAnySchool(db: Db): boolean {
 
 /**
  * Creates the demo school with its staff, classes, students and parents. Runs in one
- * transaction: a half-seeded school never exists.
+ * transaction: a half-seeded school never exists. Then a few demo photos go to object storage
+ * (db/seed/evidence.ts); if storage is not there, the school is seeded without them.
  */
-export async function seedDemoSchool(db: Db, { now = new Date() }: { now?: Date } = {}): Promise<SeedResult> {
+export async function seedDemoSchool(db: Db, { now = new Date(), photos = true }: { now?: Date; photos?: boolean } = {}): Promise<SeedResult> {
   // Every demo account shares one password, so one hash serves them all and first start is quick.
   const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const seeded = seedTransaction(db, passwordHash, now);
+  return { ...seeded, photos: photos ? await seedDemoEvidence(db, seeded) : 0 };
+}
+
+function seedTransaction(db: Db, passwordHash: string, now: Date): Omit<SeedResult, "photos"> {
   return db.transaction((tx) => {
     const schoolId = tx.insert(schools).values({ name: DEMO_SCHOOL.name, slug: DEMO_SCHOOL.slug }).returning({ id: schools.id }).get().id;
     const userIds = new Map<string, string>();

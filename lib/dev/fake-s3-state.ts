@@ -9,3 +9,8 @@ export function fakeS3Port(): number {
 export function setFakeS3Port(port: number): void {
   g.__meniscusFakeS3Port = port;
 }
+
+/** Whether this process started the built-in S3 server (the demo seed only uploads to one that is running). */
+export function fakeS3Started(): boolean {
+  return g.__meniscusFakeS3Port !== undefined;
+}
