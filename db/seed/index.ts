@@ -160,7 +160,9 @@ function seedTransaction(db: Db, passwordHash: string, now: Date): Omit<SeedResu
           const studentId = userIds.get(person.key)!;
           const generated = writeUpFor(practicalKey, dp.content, i, scenario);
           const started = new Date(opensAt.getTime() + (1 + (i % 5)) * 3_600_000);
-          const submittedAt = scenario === "submitted" ? new Date(dueAt.getTime() - (1 + (i % 3)) * 86_400_000) : scenario === "late" ? new Date(dueAt.getTime() + (1 + (i % 2)) * 86_400_000) : null;
+          const planned = scenario === "submitted" ? new Date(dueAt.getTime() - (1 + (i % 3)) * 86_400_000) : scenario === "late" ? new Date(dueAt.getTime() + (1 + (i % 2)) * 86_400_000) : null;
+          // Work handed in early for a session still open: never later than now.
+          const submittedAt = planned && planned > now ? new Date(Math.max(started.getTime() + 3_600_000, now.getTime() - (1 + (i % 5)) * 3_600_000)) : planned;
           const writeUpId = tx
             .insert(writeUps)
             .values({
@@ -188,7 +190,8 @@ function seedTransaction(db: Db, passwordHash: string, now: Date): Omit<SeedResu
     const d10D = sessionDates("10D-mg");
     fillSession("10D-mg", "mg-acid", "10D", (i) => (i === 5 || i === 17 ? "not-started" : i % 7 === 3 ? "late" : "submitted"), d10D.opensAt, d10D.dueAt);
     const d10C = sessionDates("10C-mg");
-    fillSession("10C-mg", "mg-acid", "10C", (i, key) => (key === "student" || i % 2 === 1 ? "draft" : "not-started"), d10C.opensAt, d10C.dueAt);
+    // 10C's open session: most are still drafting, a few handed in early (so the teacher has work waiting to mark), some not started.
+    fillSession("10C-mg", "mg-acid", "10C", (i, key) => (key === "student" || i % 2 === 1 ? "draft" : i % 4 === 2 ? "submitted" : "not-started"), d10C.opensAt, d10C.dueAt);
     const d12A = sessionDates("12A-thio");
     fillSession("12A-thio", "thiosulfate", "12A", (i, key) => (key === "sibling" || i % 3 !== 2 ? "draft" : "not-started"), d12A.opensAt, d12A.dueAt);
 

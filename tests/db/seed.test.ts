@@ -32,5 +32,9 @@ describe("the demo school", () => {
     const own = db.select().from(writeUps).all().filter((w) => w.studentId === res.userIds.get("student"));
     expect(own.map((w) => w.status).sort()).toEqual(["draft", "returned"]);
     expect(db.select().from(moderationMarks).all()).toHaveLength(2);
+    // The demo teacher has work handed in and waiting to be marked, handed in before now.
+    const waiting = db.select().from(writeUps).all().filter((w) => w.labSessionId === res.labSessionIds.get("10C-mg") && w.status === "submitted");
+    expect(waiting.length).toBeGreaterThan(0);
+    for (const w of waiting) expect(w.submittedAt!.getTime()).toBeLessThanOrEqual(now.getTime());
   });
 });
