@@ -12,25 +12,25 @@ export function AppHeader({ person }: { person: { name: string; roles: readonly 
       <a href="#main" className="skip-link">
         Skip to main content
       </a>
-      <div className="mx-auto flex max-w-6xl items-center justify-between gap-3 px-4 py-3">
+      <div className="mx-auto flex max-w-6xl items-center justify-between gap-2 px-4 py-3">
         <Link href="/" className="text-ink no-underline" aria-label="Meniscus home">
           <Logo />
         </Link>
         {person ? (
           <>
             <nav aria-label="Main" className="hidden flex-1 md:block">
-              <ul className="flex flex-wrap items-center gap-x-0.5">
+              <ul className="flex flex-wrap items-center">
                 {links.map((l) => (
                   <li key={l.href}>
-                    <NavItem href={l.href} label={l.label} className="block rounded-md px-2 py-2 font-semibold hover:bg-brand-soft hover:text-brand-strong xl:px-2.5" />
+                    <NavItem href={l.href} label={l.label} className="block rounded-md px-2 py-2 font-semibold hover:bg-brand-soft hover:text-brand-strong" />
                   </li>
                 ))}
               </ul>
             </nav>
-            <div className="hidden items-center gap-3 md:flex">
+            <div className="hidden items-center gap-2 md:flex">
               <Link href="/account" className="text-right no-underline text-ink">
-                <span className="block font-semibold leading-tight">{person.name}</span>
-                <span className="block text-sm text-muted">{person.roles.map((r) => ROLE_LABELS[r]).join(" · ")}</span>
+                <span className="block text-sm font-semibold leading-tight">{person.name}</span>
+                <span className="block text-xs text-muted">{person.roles.map((r) => ROLE_LABELS[r]).join(" · ")}</span>
               </Link>
               <SignOutButton />
             </div>

@@ -62,8 +62,10 @@ describe("each demo role signs in to its own home page", () => {
         expect(await home.heading.textContent()).toBe(`Hello, ${DEMO.moderator.firstName}`);
         const toDo = home.section("Second marking to do");
         expect(await toDo.isVisible()).toBe(true);
-        // The demo sample of 10D's magnesium practical has two of its items second-marked (db/seed).
-        expect(await toDo.innerText()).toMatch(/Magnesium and acid.*10D Chemistry[\s\S]*2 of \d+ second-marked/);
+        // The demo sample of 10D's magnesium practical is waiting, part-way through (db/seed).
+        // (Other browser tests may draw more samples or second-mark more pieces first.)
+        const mg10D = toDo.getByRole("listitem").filter({ hasText: /Magnesium and acid.*10D Chemistry/ });
+        expect(await mg10D.innerText()).toMatch(/\d+ of \d+ second-marked/);
         expect(await home.section("Your classes").count()).toBe(0);
         expect(await home.section("Your science classes").count()).toBe(0);
         await screenshot(page, "home-moderator");

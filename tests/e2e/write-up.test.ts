@@ -259,8 +259,19 @@ describe("the demo student on a phone", () => {
     const { labSessionId } = demoSession();
     await page.goto(`/lab-sessions/${labSessionId}/write-up`);
     await page.getByRole("heading", { name: "Calculations" }).waitFor(WAIT);
-    await page.getByLabel("Jump to a part of your write-up").selectOption("calculations");
-    await page.waitForFunction(() => document.activeElement?.id === "wu-calculations-title");
+    // Let the lazily loaded editors, graphs and photos finish arriving first: a late one can
+    // take the focus back while it mounts on a slow machine.
+    await page.locator("#wu-evaluation-editor").waitFor(WAIT);
+    await page.waitForLoadState("networkidle");
+    let focused = false;
+    for (let attempt = 0; attempt < 3 && !focused; attempt++) {
+      await page.getByLabel("Jump to a part of your write-up").selectOption("calculations");
+      focused = await page
+        .waitForFunction(() => document.activeElement?.id === "wu-calculations-title", undefined, { timeout: 10_000 })
+        .then(() => true)
+        .catch(() => false);
+    }
+    expect(focused, "the jump menu moves the focus to the Calculations heading").toBe(true);
     const bar = await status(page).boundingBox();
     expect(bar && bar.y >= 0 && bar.y < 60, "the save status stays in view at the top").toBe(true);
     await screenshot(page, "write-up-demo-student");
