@@ -1,13 +1,11 @@
 import type { ReactNode } from "react";
+import { CheckOutcomeRows, fourFigures as num } from "@/components/write-up/check-outcome-rows";
 import { RichTextView } from "@/components/editor/rich-text-view";
 import type { CheckSpec } from "@/lib/validation/practicals";
 import type { StoredAnswer } from "@/lib/validation/write-ups";
 import { formatDateTime } from "@/lib/utils";
 import { VerdictMark } from "./status";
 import type { StaffCheckState } from "./types";
-
-/** A number to four significant figures, without trailing noise. */
-const num = (n: number) => String(Number(n.toPrecision(4)));
 
 const perRow = (spec: CheckSpec) => spec.kind === "reciprocal-time" || spec.kind === "mean-of-repeats";
 
@@ -54,49 +52,7 @@ export function CheckOutcomeView({ spec, answer, state, footer }: { spec: CheckS
             <span className="text-sm text-muted">checked {formatDateTime(state.ranAt)}</span>
           </p>
           <dl className="grid gap-x-4 gap-y-0.5 text-[0.97rem] sm:grid-cols-[max-content_1fr]">
-            {o.expected ? (
-              <>
-                <dt className="font-semibold">Expected</dt>
-                <dd className="tabular-nums">
-                  {num(o.expected.value)}
-                  {o.expected.uncertainty ? ` ± ${Number(o.expected.uncertainty.toPrecision(2))}` : ""}
-                  {o.expected.unit ? ` ${o.expected.unit}` : ""} <span className="text-muted">from this student&apos;s data</span>
-                </dd>
-              </>
-            ) : null}
-            {o.deviationPercent != null ? (
-              <>
-                <dt className="font-semibold">Deviation</dt>
-                <dd className="tabular-nums">
-                  {o.deviationPercent >= 0 ? "+" : "−"}
-                  {Math.abs(o.deviationPercent).toFixed(1)} % <span className="text-muted">(allowed ±{spec.tolerancePercent} %)</span>
-                </dd>
-              </>
-            ) : null}
-            {o.likelySlip ? (
-              <>
-                <dt className="font-semibold">Likely slip</dt>
-                <dd>{o.likelySlip.message}</dd>
-              </>
-            ) : null}
-            {o.sigFigs.message ? (
-              <>
-                <dt className="font-semibold">Significant figures</dt>
-                <dd>{o.sigFigs.message}</dd>
-              </>
-            ) : null}
-            {o.unit.message ? (
-              <>
-                <dt className="font-semibold">Unit</dt>
-                <dd>{o.unit.message}</dd>
-              </>
-            ) : null}
-            {o.tangent ? (
-              <>
-                <dt className="font-semibold">Tangent</dt>
-                <dd>{o.tangent.message}</dd>
-              </>
-            ) : null}
+            <CheckOutcomeRows outcome={o} tolerancePercent={spec.tolerancePercent} />
             {o.reason ? (
               <>
                 <dt className="font-semibold">Why</dt>

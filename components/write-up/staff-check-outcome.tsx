@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import { CheckOutcomeRows, fourFigures as num } from "@/components/write-up/check-outcome-rows";
 import { Badge } from "@/components/ui/badge";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { CheckSpec, TableTemplate } from "@/lib/validation/practicals";
@@ -6,7 +7,6 @@ import { checkInstructions, isPerRowCheck } from "./check-words";
 import type { CheckStateJson } from "./types";
 import { VerdictBadge } from "./verdict";
 
-const num = (n: number) => String(Number(n.toPrecision(4)));
 
 /**
  * One calculation check as the teacher sees it: the student's answer and working, the verdict,
@@ -53,49 +53,7 @@ export function StaffCheckOutcome({
             <span className="text-sm text-muted">Run {new Date(state.ranAt).toLocaleString("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" })}</span>
           </p>
           <dl className="grid gap-x-4 gap-y-1 sm:grid-cols-[max-content_1fr]">
-            {o.expected ? (
-              <>
-                <dt className="font-semibold">Expected</dt>
-                <dd>
-                  {num(o.expected.value)}
-                  {o.expected.uncertainty ? ` ± ${Number(o.expected.uncertainty.toPrecision(2))}` : ""}
-                  {o.expected.unit ? ` ${o.expected.unit}` : ""} <span className="text-muted">(from this student&apos;s data)</span>
-                </dd>
-              </>
-            ) : null}
-            {o.deviationPercent != null ? (
-              <>
-                <dt className="font-semibold">Deviation</dt>
-                <dd>
-                  {o.deviationPercent >= 0 ? "+" : "−"}
-                  {Math.abs(o.deviationPercent).toFixed(1)} % <span className="text-muted">(allowed {spec.tolerancePercent} %)</span>
-                </dd>
-              </>
-            ) : null}
-            {o.likelySlip ? (
-              <>
-                <dt className="font-semibold">Likely slip</dt>
-                <dd>{o.likelySlip.message}</dd>
-              </>
-            ) : null}
-            {o.sigFigs.message ? (
-              <>
-                <dt className="font-semibold">Significant figures</dt>
-                <dd>{o.sigFigs.message}</dd>
-              </>
-            ) : null}
-            {o.unit.message ? (
-              <>
-                <dt className="font-semibold">Unit</dt>
-                <dd>{o.unit.message}</dd>
-              </>
-            ) : null}
-            {o.tangent ? (
-              <>
-                <dt className="font-semibold">Tangent</dt>
-                <dd>{o.tangent.message}</dd>
-              </>
-            ) : null}
+            <CheckOutcomeRows outcome={o} tolerancePercent={spec.tolerancePercent} />
             <dt className="font-semibold">Hint shown</dt>
             <dd>{spec.show === "verdict" ? <span className="text-muted">none (verdict only)</span> : o.hint}</dd>
             <dt className="font-semibold">Reason</dt>
