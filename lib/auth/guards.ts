@@ -1,20 +1,18 @@
 import "server-only";
 import { cache } from "react";
-import { getServerSession } from "next-auth";
 import { forbidden as forbiddenPage, redirect } from "next/navigation";
 import { loadActor } from "@/db/queries/users";
 import type { Role } from "@/lib/roles";
 import { AppError, unauthorized } from "@/lib/errors";
 import { hasRole, type Actor } from "./actor";
-import { authOptions } from "./options";
+import { sessionUserId } from "./session";
 
 /**
  * The signed-in person for this request, loaded fresh from the database (so a deactivated
  * account or a removed role takes effect at once), or null. Cached per request.
  */
 export const currentActor = cache(async (): Promise<Actor | null> => {
-  const session = await getServerSession(authOptions());
-  const id = session?.user?.id;
+  const id = await sessionUserId();
   return id ? loadActor(id) : null;
 });
 

@@ -72,10 +72,13 @@ export function authOptions(): NextAuthOptions {
       }),
     ],
     callbacks: {
+      // Runs at sign-in and whenever next-auth's own session endpoint is asked; pages, route
+      // handlers and actions read the cookie through lib/auth/session.ts and load the person
+      // fresh from the database themselves.
       async jwt({ token, user }) {
-        if (user) token.sub = user.id;
-        if (token.sub) {
-          const actor = loadActor(token.sub);
+        if (user) {
+          token.sub = user.id;
+          const actor = loadActor(user.id);
           if (actor) {
             token.roles = [...actor.roles];
             token.schoolId = actor.schoolId;

@@ -19,7 +19,7 @@ import { signInAs } from "../helpers/session";
 import { apiRequest, call } from "./helpers";
 
 // The factory imports the helper itself: vi.mock is hoisted above this file's imports.
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 type School = { admin: Actor; teacher: Actor; student: Actor; parent: Actor; moderator: Actor; classId: string; mailId: string };
 

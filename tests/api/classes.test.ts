@@ -10,7 +10,7 @@ import { auditEntries, freshDatabase, makeClass, makeSchool, makeUser } from "..
 import { signInAs } from "../helpers/session";
 import { apiRequest, call, expectNoSecrets } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 describe("/api/classes", () => {
   let schoolId: string;

@@ -6,7 +6,7 @@ import { auditEntries, freshDatabase, makeSchool, makeUser } from "../helpers/db
 import { signInAs } from "../helpers/session";
 import { apiRequest, call, rowCount } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 describe("/api/family-links", () => {
   let schoolId: string;

@@ -8,7 +8,7 @@ import { completePracticalContent } from "../helpers/practicals";
 import { signInAs } from "../helpers/session";
 import { apiRequest, call } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 const DAY = 86_400_000;
 const meta = { title: "Catalase and hydrogen peroxide", topic: "Enzymes and rates", yearGroup: 10, subject: "Chemistry" };

@@ -12,7 +12,7 @@ import { freshDatabase, makeClass, makeSchool, makeUser, testDb } from "../helpe
 import { signInAs } from "../helpers/session";
 import { apiRequest, call, expectNoSecrets } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 let smtp: { close: () => Promise<void> };
 beforeAll(async () => {

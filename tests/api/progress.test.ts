@@ -15,7 +15,7 @@ import { auditEntries, freshDatabase, makeSchool, makeUser, testDb } from "../he
 import { signInAs } from "../helpers/session";
 import { apiRequest, call, rowCount } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 // The handlers use the clock; fixing it (and only it) keeps the term and the lab-session states the
 // same whatever day the suite runs. The demo school is seeded relative to the same moment.

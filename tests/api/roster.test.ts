@@ -10,7 +10,7 @@ import { auditEntries, freshDatabase, linkParentDirect, makeClass, makeSchool, m
 import { signInAs } from "../helpers/session";
 import { apiRequest, call, caughtMail, expectNoSecrets, linkIn, writeCounts } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 let smtp: { close: () => Promise<void> };
 beforeAll(async () => {

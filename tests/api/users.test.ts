@@ -14,7 +14,7 @@ import { freshDatabase, makeClass, makeSchool, makeUser, linkParentDirect } from
 import { signInAs } from "../helpers/session";
 import { apiRequest, call, caughtMail, expectNoSecrets, linkIn, rowCount } from "./helpers";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 let smtp: { close: () => Promise<void> };
 beforeAll(async () => {

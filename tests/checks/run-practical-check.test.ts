@@ -6,7 +6,7 @@ import { checkSchema, tableSchema } from "@/lib/validation/practicals";
 import { freshDatabase, makeSchool, makeUser } from "../helpers/db";
 import { jsonRequest, signInAs } from "../helpers/session";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 // Invented readings of gas volume against time. The mean rate from 0 s to 30 s is the chord
 // gradient (41 − 0) cm³ / (30 − 0) s = 1.3667 cm³/s — worked by hand from the definition of a mean

@@ -2,9 +2,10 @@ import { vi } from "vitest";
 import type { Actor } from "@/lib/auth/actor";
 
 /**
- * Route-handler tests sign people in by controlling what next-auth's getServerSession returns;
- * the real guards then load the person from the test database as they would in production.
- * Call `vi.mock("next-auth", ...)` with `mockNextAuth` at the top of the test file.
+ * Route-handler tests sign people in by controlling whom the session cookie names
+ * (lib/auth/session.ts); the real guards then load the person from the test database as they
+ * would in production. Call `vi.mock("@/lib/auth/session", ...)` with `mockSession` at the top
+ * of the test file.
  */
 export const sessionState: { actor: Actor | null } = { actor: null };
 
@@ -12,12 +13,8 @@ export function signInAs(actor: Actor | null) {
   sessionState.actor = actor;
 }
 
-export async function mockNextAuth(importOriginal: () => Promise<unknown>) {
-  const original = (await importOriginal()) as Record<string, unknown>;
-  return {
-    ...original,
-    getServerSession: vi.fn(async () => (sessionState.actor ? { user: { id: sessionState.actor.userId, name: sessionState.actor.name, email: sessionState.actor.email } } : null)),
-  };
+export function mockSession() {
+  return { sessionUserId: vi.fn(async () => sessionState.actor?.userId ?? null) };
 }
 
 /** A JSON request as a browser on the same origin would send it. */

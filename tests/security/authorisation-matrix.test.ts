@@ -9,7 +9,7 @@ import { startServers } from "./servers";
 import { buildWorld, homeIds, restore, snapshot, type World } from "./world";
 
 // The factory imports the helper itself: vi.mock is hoisted above this file's imports.
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 process.env.NEXTAUTH_SECRET ??= "test-only-session-key";
 process.env.NEXTAUTH_URL ??= "http://localhost:3000";
 

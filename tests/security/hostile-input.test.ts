@@ -16,7 +16,7 @@ import { setCurrentRequest } from "./next-auth-flow";
 import { startServers } from "./servers";
 import { buildWorld, restore, snapshot, type World } from "./world";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 process.env.NEXTAUTH_SECRET ??= "test-only-session-key";
 
 /**

@@ -10,7 +10,7 @@ import { apiRequest, call } from "../api/helpers";
 import { startServers } from "./servers";
 import { buildWorld, restore, snapshot, type World } from "./world";
 
-vi.mock("next-auth", async (orig) => (await import("../helpers/session")).mockNextAuth(orig));
+vi.mock("@/lib/auth/session", async () => (await import("../helpers/session")).mockSession());
 
 let world: World;
 let image: Buffer;
