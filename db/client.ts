@@ -43,7 +43,20 @@ export function openDatabase(file: string): Handle {
   // Maintenance: DATABASE_READONLY=1 serves reading but refuses every write (SQLITE_READONLY,
   // answered as 503 with a plain message), e.g. while a copy of the file is being taken or checked.
   if (process.env.DATABASE_READONLY === "1") sqlite.pragma("query_only = ON");
+  else writeTransactionsImmediate(db);
   return { db, sqlite, file };
+}
+
+/**
+ * Several server workers (scripts/serve.mjs) share the file. A deferred transaction that reads
+ * and then writes fails at once with SQLITE_BUSY if another worker wrote in between; one that
+ * takes the write lock as it begins (IMMEDIATE) waits its turn instead (busy_timeout). Every
+ * `db.transaction(...)` is therefore IMMEDIATE unless it asks otherwise. (Not in read-only
+ * mode, where SQLite refuses BEGIN IMMEDIATE and nothing writes anyway.)
+ */
+function writeTransactionsImmediate(db: Db): void {
+  const begin = db.transaction.bind(db);
+  db.transaction = ((fn, config) => begin(fn, { behavior: "immediate", ...config })) as Db["transaction"];
 }
 
 /** The one shared connection for this process. */
@@ -54,6 +67,22 @@ export function getDb(): Db {
 export function getHandle(): Handle {
   if (!globalForDb.__meniscusDb) globalForDb.__meniscusDb = openDatabase(databasePath());
   return globalForDb.__meniscusDb;
+}
+
+/**
+ * A query built and compiled once per database connection, for the paths that every request or
+ * every autosave takes (who is signed in, the write-up being saved). Without it Drizzle builds
+ * the SQL text and SQLite compiles it on every call, which under load costs more than running
+ * the query. `build` receives the connection and returns `query.prepare()` with placeholders.
+ */
+export function preparedOnce<Q>(build: (db: Db) => Q): () => Q {
+  const byConnection = new WeakMap<Db, Q>();
+  return () => {
+    const db = getDb();
+    let query = byConnection.get(db);
+    if (!query) byConnection.set(db, (query = build(db)));
+    return query;
+  };
 }
 
 /** Tests: point the process at another database (for example an in-memory one). */

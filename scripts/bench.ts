@@ -1,6 +1,7 @@
 /**
  * Load benchmark (`npm run bench`): builds the production server into .next-bench, seeds a large
- * invented school into a temporary database, starts `next start` on loopback and measures with
+ * invented school into a temporary database, starts the production server (scripts/serve.mjs:
+ * `next start` in one worker per core, as `npm start` runs it) on loopback and measures with
  * autocannon: write-up autosave from many students at once, calculation checks, the marking bench
  * and the parent pages; then the same row written with bare better-sqlite3 in the same run, so the
  * framework's share shows as a ratio; then first-load JavaScript per route from the build.
@@ -8,10 +9,12 @@
  * Sizes come from the environment (defaults are the full school):
  *   BENCH_STUDENTS=2000 BENCH_CLASSES=80 BENCH_PRACTICALS=40 BENCH_WRITE_UPS=20000
  *   BENCH_CONNECTIONS=200 (autosave and checks) BENCH_PAGE_CONNECTIONS=10 BENCH_SECONDS=10
+ *   BENCH_WARMUP=3 (seconds of the same load before each row, not counted) BENCH_AUTOSAVE_RATE=500
  *   BENCH_SKIP_BUILD=1 reuses .next-bench; BENCH_KEEP=1 keeps the temporary folder;
  *   BENCH_OUT=bench-results/latest.md (set BENCH_OUT= to write nothing).
  * For finding where the time goes:
  *   BENCH_ROWS=autosave,checks,pages,pdf,writeup (default: all) runs only those rows;
+ *   BENCH_TRACE=<file> writes every response (row, ms since the row began, status, latency);
  *   BENCH_CPU_PROF=<folder> starts the server with `node --cpu-prof` and leaves the .cpuprofile there.
  */
 import { spawn, type ChildProcess } from "node:child_process";
@@ -24,10 +27,12 @@ import Database from "better-sqlite3";
 import { openDatabase } from "../db/client";
 import { drawModerationSample, defaultSampleRule, markingAgreement, suggestMarkAdjustment } from "../lib/marking";
 import { firstLoadJs } from "./bench/first-load-js";
+import { signInOverHttp } from "../tests/helpers/http-sign-in";
 import { BENCH_PASSWORD, seedBenchSchool, type BenchSchool } from "./bench/seed-school";
 
 const DIST_DIR = ".next-bench";
 const NEXT_BIN = path.join("node_modules", "next", "dist", "bin", "next");
+const SERVE = path.join("scripts", "serve.mjs");
 const num = (name: string, fallback: number) => {
   const v = Number(process.env[name]);
   return Number.isFinite(v) && v > 0 ? v : fallback;
@@ -35,10 +40,14 @@ const num = (name: string, fallback: number) => {
 const sizes = { students: num("BENCH_STUDENTS", 2000), classes: num("BENCH_CLASSES", 80), practicals: num("BENCH_PRACTICALS", 40), writeUps: num("BENCH_WRITE_UPS", 20000) };
 const CONNECTIONS = num("BENCH_CONNECTIONS", 200);
 const AUTOSAVE_RATE = num("BENCH_AUTOSAVE_RATE", 500);
+const WORKERS = num("WEB_CONCURRENCY", Math.max(1, Math.min(4, os.availableParallelism())));
 const PAGE_CONNECTIONS = num("BENCH_PAGE_CONNECTIONS", 10);
 const SECONDS = num("BENCH_SECONDS", 10);
+const WARMUP = Number(process.env.BENCH_WARMUP ?? 3);
 const OUT = process.env.BENCH_OUT ?? path.join("bench-results", "latest.md");
 const ROWS = new Set((process.env.BENCH_ROWS ?? "autosave,checks,pages,pdf,writeup").split(",").map((r) => r.trim()));
+const TRACE = process.env.BENCH_TRACE ? path.resolve(process.env.BENCH_TRACE) : null;
+const trace: string[] = [];
 const CPU_PROF = process.env.BENCH_CPU_PROF ? path.resolve(process.env.BENCH_CPU_PROF) : null;
 const log = (msg: string) => console.log(`[bench] ${msg}`);
 
@@ -101,30 +110,7 @@ async function waitUntilServing(url: string, server: ChildProcess, timeoutMs: nu
   throw new Error(`The server did not answer ${url}.`);
 }
 
-/** Signs in through next-auth's credentials endpoint and returns the Cookie header to send. */
-async function signIn(base: string, email: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const i = pair!.indexOf("=");
-      jar.set(pair!.slice(0, i), pair!.slice(i + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrfRes = await fetch(`${base}/api/auth/csrf`);
-  keep(csrfRes);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie(), origin: base },
-    body: new URLSearchParams({ csrfToken, email, password: BENCH_PASSWORD, json: "true", callbackUrl: `${base}/` }),
-  });
-  keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`Sign-in failed for ${email} (HTTP ${res.status}).`);
-  return cookie();
-}
+const signIn = (base: string, email: string) => signInOverHttp(base, email, BENCH_PASSWORD);
 
 async function mapLimit<T, R>(items: T[], limit: number, fn: (item: T) => Promise<R>): Promise<R[]> {
   const out: R[] = new Array(items.length);
@@ -146,11 +132,24 @@ function percentile(sorted: number[], p: number): number {
 }
 
 /** Runs autocannon and computes p50/p95/p99 from every response time (autocannon's own summary has no p95). */
-async function measure(name: string, who: string, opts: autocannon.Options): Promise<Row> {
+/**
+ * Runs autocannon for BENCH_WARMUP seconds without counting (the server compiles and optimises
+ * the route's code on its first requests, as it would early in a school day), calls `between`,
+ * then measures for BENCH_SECONDS.
+ */
+async function measure(name: string, who: string, opts: autocannon.Options, between?: () => void): Promise<Row> {
+  if (WARMUP > 0) {
+    await new Promise<autocannon.Result>((resolve, reject) => autocannon({ ...opts, duration: WARMUP }, (err, res) => (err ? reject(err) : resolve(res))));
+    between?.();
+  }
   const times: number[] = [];
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
     const instance = autocannon({ ...opts, duration: SECONDS }, (err, res) => (err ? reject(err) : resolve(res)));
-    instance.on("response", (_client: unknown, _status: number, _bytes: number, responseTime: number) => times.push(responseTime));
+    const t0 = Date.now();
+    instance.on("response", (_client: unknown, status: number, _bytes: number, responseTime: number) => {
+      times.push(responseTime);
+      if (TRACE) trace.push(`${name}\t${Date.now() - t0}\t${status}\t${responseTime.toFixed(1)}`);
+    });
   });
   times.sort((a, b) => a - b);
   const errors = result.errors + result.timeouts + result.non2xx;
@@ -236,7 +235,7 @@ async function main() {
     const logFile = path.join(work, "server.log");
     const out = fs.openSync(logFile, "a");
     const profile = CPU_PROF ? ["--cpu-prof", "--cpu-prof-dir", CPU_PROF] : [];
-    server = spawn(process.execPath, [...profile, NEXT_BIN, "start", "-p", String(port), "-H", "127.0.0.1"], {
+    server = spawn(process.execPath, [...profile, SERVE, "-p", String(port), "-H", "127.0.0.1"], {
       env: serverEnv({ PORT: String(port), DATABASE_PATH: dbFile, MAIL_FAKE_PORT: "0", S3_FAKE_PORT: "0", APP_URL: base, NEXTAUTH_URL: base, MENISCUS_SEED: "off" }),
       stdio: ["ignore", out, out],
     });
@@ -278,36 +277,49 @@ async function main() {
 
     const rows: Row[] = [];
     let lostNote = "";
+    // Each connection is one student for the whole row, as a browser tab is. (autocannon clears a
+    // request's context every time it starts the list again, so the student is given to each
+    // connection as it opens, with requests of its own.)
     let nextStudent = 0;
-    const claim = (context: Record<string, unknown>) => (context.s ??= students[nextStudent++ % students.length]) as Student;
+    const perStudent = (request: (s: Student) => autocannon.Request) => ({
+      setupClient: (client: autocannon.Client) => {
+        const s = students[nextStudent++ % students.length]!;
+        client.setRequests([request(s)]);
+      },
+    });
     let saveNo = 0;
+    // Between rows, and after a warm-up, each student carries on from the revision stored (a
+    // save still in flight when a row ends is committed without its answer being counted, as
+    // when a tab closes; the editor then starts from what is stored).
+    const syncRevisions = () => {
+      const read = new Database(dbFile, { readonly: true });
+      const get = read.prepare("SELECT revision FROM write_ups WHERE id = ?").pluck();
+      for (const s of students) s.revision = get.get(s.writeUpId) as number;
+      read.close();
+    };
     const autosave = (name: string, extra: Partial<autocannon.Options>) =>
       measure(name, "students, own write-up", {
         url: base,
         connections: CONNECTIONS,
         ...extra,
-        requests: [
-          {
-            method: "PUT",
-            setupRequest: (req, context) => {
-              const s = claim(context as Record<string, unknown>);
-              return { ...req, path: `/api/write-ups/${s.writeUpId}`, headers: { ...req.headers, cookie: s.cookie, origin: base, "content-type": "application/json" }, body: saveBody(s, saveNo++) };
-            },
-            onResponse: (status, body, context) => {
-              const s = (context as Record<string, unknown>).s as Student;
-              if (status === 200) {
-                s.revision = (JSON.parse(body) as { revision: number }).revision;
-                s.saved++;
-              } else if (status === 409) {
-                // A save whose answer timed out was committed after all: carry on from the stored
-                // revision the refusal reports, as the editor does once the student chooses.
-                const current = (JSON.parse(body) as { error?: { current?: { revision?: number } } }).error?.current?.revision;
-                if (typeof current === "number") s.revision = current;
-              }
-            },
+        ...perStudent((s) => ({
+          method: "PUT",
+          path: `/api/write-ups/${s.writeUpId}`,
+          headers: { cookie: s.cookie, origin: base, "content-type": "application/json" },
+          setupRequest: (req) => ({ ...req, body: saveBody(s, saveNo++) }),
+          onResponse: (status, body) => {
+            if (status === 200) {
+              s.revision = (JSON.parse(body) as { revision: number }).revision;
+              s.saved++;
+            } else if (status === 409) {
+              // A save whose answer timed out was committed after all: carry on from the stored
+              // revision the refusal reports, as the editor does once the student chooses.
+              const current = (JSON.parse(body) as { error?: { current?: { revision?: number } } }).error?.current?.revision;
+              if (typeof current === "number") s.revision = current;
+            }
           },
-        ],
-      });
+        })),
+      }, syncRevisions);
     if (ROWS.has("autosave")) {
       // Flat out: every student's connection sends its next save the moment the last one is
       // answered, so this is the most the server can take; latency here is mostly queueing
@@ -316,6 +328,7 @@ async function main() {
       // At the target rate: the same 200 students saving 500 times a second between them (one save
       // each every 0.4 s, far more often than the editor's autosave), as a school day would send
       // them; latency here is what a student waits.
+      syncRevisions();
       rows.push({ ...(await autosave(`autosave write-up, ${AUTOSAVE_RATE} saves/s (PUT /api/write-ups/[id])`, { overallRate: AUTOSAVE_RATE })), kind: "save" });
       // Every acknowledged save is in the database: no write-up's revision is behind the last
       // revision its student was told about.
@@ -329,7 +342,7 @@ async function main() {
       const lost = students.filter((s) => stored.get(s.writeUpId)! < s.revision).length;
       const unanswered = students.reduce((sum, s) => sum + Math.max(0, stored.get(s.writeUpId)! - s.revision), 0);
       const accepted = students.reduce((sum, s) => sum + s.saved, 0);
-      lostNote = `${accepted} saves acknowledged over both autosave rows; ${lost === 0 ? "no write-up is behind its last acknowledged save (nothing lost)" : `${lost} write-ups are BEHIND their last acknowledged save`}; ${unanswered} saves committed after their request had timed out at the load generator`;
+      lostNote = `${accepted} saves acknowledged over both autosave rows; ${lost === 0 ? "no write-up is behind its last acknowledged save (nothing lost)" : `${lost} write-ups are BEHIND their last acknowledged save`}; ${unanswered} saves of the last row committed without their answer being counted (in flight as it ended)`;
       log(lostNote);
     }
 
@@ -339,16 +352,12 @@ async function main() {
         ...(await measure("calculation check (POST /api/write-ups/[id]/checks/[checkId])", "students, own write-up", {
           url: base,
           connections: CONNECTIONS,
-          requests: [
-            {
-              method: "POST",
-              setupRequest: (req, context) => {
-                const s = claim(context as Record<string, unknown>);
-                const checkId = s.checkIds[Math.floor(Math.random() * s.checkIds.length)] ?? "none";
-                return { ...req, path: `/api/write-ups/${s.writeUpId}/checks/${checkId}`, headers: { ...req.headers, cookie: s.cookie, origin: base, "content-type": "application/json" }, body: JSON.stringify({ answer: { value: "0.42", unit: "cm³/s" } }) };
-              },
-            },
-          ],
+          ...perStudent((s) => ({
+            method: "POST",
+            headers: { cookie: s.cookie, origin: base, "content-type": "application/json" },
+            body: JSON.stringify({ answer: { value: "0.42", unit: "cm³/s" } }),
+            setupRequest: (req) => ({ ...req, path: `/api/write-ups/${s.writeUpId}/checks/${s.checkIds[Math.floor(Math.random() * s.checkIds.length)] ?? "none"}` }),
+          })),
         })),
         kind: "check",
       });
@@ -366,21 +375,14 @@ async function main() {
         ...(await measure("write-up page (/lab-sessions/[id]/write-up)", "students, own write-up", {
           url: base,
           connections: PAGE_CONNECTIONS,
-          requests: [
-            {
-              method: "GET",
-              setupRequest: (req, context) => {
-                const s = claim(context as Record<string, unknown>);
-                return { ...req, path: `/lab-sessions/${s.labSessionId}/write-up`, headers: { ...req.headers, cookie: s.cookie } };
-              },
-            },
-          ],
+          ...perStudent((s) => ({ method: "GET", path: `/lab-sessions/${s.labSessionId}/write-up`, headers: { cookie: s.cookie } })),
         })),
         kind: "page",
       });
     }
 
     // The server stays up but idle while the bare writes run, so they do not share the CPU.
+    if (TRACE) fs.writeFileSync(TRACE, `${trace.join("\n")}\n`);
     const bare = { ...bareWrites(dbFile, students), kind: "bare" as const };
     rows.push(bare);
     log(`bare better-sqlite3: ${bare.perSecond.toFixed(0)} writes/s, p50 ${ms(bare.p50)} ms, p99 ${ms(bare.p99)} ms`);
@@ -447,7 +449,7 @@ function renderReport({ started, school, seedSeconds, rows, lostNote, sizesByRou
   lines.push(`# Meniscus load bench`);
   lines.push("");
   lines.push(`Run ${started.toISOString()} on ${cpu.length} × ${cpu[0]?.model ?? "CPU"}, Node ${process.version}; load average at the end ${os.loadavg().map((l) => l.toFixed(2)).join(" / ")}.`);
-  lines.push(`The load generator (autocannon) runs on the same machine as the server and shares its CPUs. ${SECONDS} s per row.`);
+  lines.push(`Server: scripts/serve.mjs with ${WORKERS} worker${WORKERS === 1 ? "" : "s"} (WEB_CONCURRENCY). The load generator (autocannon) runs on the same machine as the server and shares its CPUs. ${SECONDS} s per row.`);
   lines.push(`School: ${Object.entries(school.counts).map(([k, v]) => `${v} ${k}`).join(", ")}; seeded in ${seedSeconds.toFixed(1)} s.`);
   lines.push("");
   lines.push("| what | as | connections | requests | req/s | p50 ms | p95 ms | p99 ms | errors |");

@@ -5,7 +5,7 @@ import { hasRole } from "@/lib/auth/actor";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import type { UserCreateInput, UserUpdateInput } from "@/lib/validation/users";
-import { getDb, type DbOrTx } from "../client";
+import { getDb, preparedOnce, type DbOrTx } from "../client";
 import { classes, classStudents, classTeachers, invitations, parentLinks, userRoles, users, type Role } from "../schema";
 import { recordAudit } from "./audit";
 
@@ -23,15 +23,21 @@ export function rolesByUser(db: DbOrTx, userIds: readonly string[]): Map<string,
 }
 
 /** The actor for a signed-in user id, or null if the account is gone or deactivated. */
-export function loadActor(userId: string): Actor | null {
-  const db = getDb();
-  const user = db
+const actorQuery = preparedOnce((db) =>
+  db
     .select({ id: users.id, schoolId: users.schoolId, name: users.name, email: users.email, active: users.active })
     .from(users)
-    .where(eq(users.id, userId))
-    .get();
+    .where(eq(users.id, sql.placeholder("id")))
+    .prepare(),
+);
+const actorRolesQuery = preparedOnce((db) => db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, sql.placeholder("id"))).prepare());
+
+export function loadActor(userId: string): Actor | null {
+  const user = actorQuery().get({ id: userId });
   if (!user || !user.active) return null;
-  const roles = rolesByUser(db, [user.id]).get(user.id) ?? [];
+  const roles = actorRolesQuery()
+    .all({ id: userId })
+    .map((r) => r.role);
   return { userId: user.id, schoolId: user.schoolId, name: user.name, email: user.email, roles };
 }
 

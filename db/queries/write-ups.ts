@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { Actor } from "@/lib/auth/actor";
 import { hasRole } from "@/lib/auth/actor";
 import { runPracticalCheck, studentView } from "@/lib/checks/run";
@@ -9,7 +9,7 @@ import type { PracticalContent } from "@/lib/validation/practicals";
 import { writeUpContentSchema, type GroupTables, type WriteUpContent } from "@/lib/validation/write-ups";
 import { keptInReadings, rowsForCheck } from "@/lib/write-ups/rows-for-check";
 import { answerFingerprint, checkDataFingerprint, isStale } from "@/lib/write-ups/stale";
-import { getDb, type DbOrTx } from "../client";
+import { getDb, preparedOnce, type DbOrTx } from "../client";
 import { checkAttempts, classes, classStudents, groupTables, labSessions, marks, moderationItems, moderationSamples, parentLinks, practicalVersions, users, writeUps, type LabSession, type WriteUp, type WriteUpStatus } from "../schema";
 import { recordAudit } from "./audit";
 import { teachesClass } from "./classes";
@@ -198,7 +198,7 @@ export function getWriteUp({ actor, writeUpId, now = new Date() }: { actor: Acto
   return buildView(db, actor, w, s, access, now);
 }
 
-function assertEditable(w: WriteUp, s: LabSession, now: Date) {
+function assertEditable(w: Pick<WriteUp, "status">, s: Parameters<typeof labSessionState>[0], now: Date) {
   if (w.status !== "draft") {
     throw new AppError("conflict", "This write-up has been handed in, so it is locked. Ask your teacher to reopen it if you need to change something.", { detail: { reason: "locked" } });
   }
@@ -212,20 +212,56 @@ function assertEditable(w: WriteUp, s: LabSession, now: Date) {
  */
 export function saveWriteUp({ actor, writeUpId, revision, content, now = new Date() }: { actor: Actor; writeUpId: string; revision: number; content: WriteUpContent; now?: Date }) {
   return getDb().transaction((db) => {
-    const { w, s, access } = loadWriteUp(db, actor, writeUpId);
-    if (access !== "owner") throw forbidden("Only the student can change their write-up.");
-    assertEditable(w, s, now);
+    // The one row an autosave needs, by a query compiled once: the write-up's owner, state and
+    // revision and its lab session's dates (the content is only read back for a conflict).
+    const w = autosaveTargetQuery().get({ id: writeUpId, schoolId: actor.schoolId });
+    if (!w || w.studentId !== actor.userId) {
+      // Not the student's own: staff are told they cannot change it, anyone else that it does not exist.
+      const { access } = loadWriteUp(db, actor, writeUpId);
+      if (access !== "owner") throw forbidden("Only the student can change their write-up.");
+      throw notFound("That write-up");
+    }
+    assertEditable(w, w, now);
     if (w.revision !== revision) {
+      const current = db.select({ content: writeUps.content, updatedAt: writeUps.updatedAt }).from(writeUps).where(eq(writeUps.id, w.id)).get()!;
       throw new AppError("conflict", "This write-up was saved from another tab or device since this page loaded. Choose which version to keep.", {
-        detail: { reason: "stale", current: { revision: w.revision, content: w.content, updatedAt: w.updatedAt } },
+        detail: { reason: "stale", current: { revision: w.revision, content: current.content, updatedAt: current.updatedAt } },
       });
     }
     const next = w.revision + 1;
-    const res = db.update(writeUps).set({ content, revision: next, updatedAt: now }).where(and(eq(writeUps.id, w.id), eq(writeUps.revision, revision))).run();
+    // Stored as the columns store them: JSON text and milliseconds.
+    const res = autosaveWriteQuery().run({ content: JSON.stringify(content), next, updatedAt: now.getTime(), id: w.id, revision });
     if (res.changes !== 1) throw new AppError("conflict", "This write-up was saved elsewhere at the same moment. Reload to see it.", { detail: { reason: "stale" } });
     return { revision: next, updatedAt: now };
   });
 }
+
+const autosaveWriteQuery = preparedOnce((db) =>
+  db
+    .update(writeUps)
+    .set({ content: sql`${sql.placeholder("content")}`, revision: sql`${sql.placeholder("next")}`, updatedAt: sql`${sql.placeholder("updatedAt")}` })
+    .where(and(eq(writeUps.id, sql.placeholder("id")), eq(writeUps.revision, sql.placeholder("revision"))))
+    .prepare(),
+);
+
+const autosaveTargetQuery = preparedOnce((db) =>
+  db
+    .select({
+      id: writeUps.id,
+      studentId: writeUps.studentId,
+      status: writeUps.status,
+      revision: writeUps.revision,
+      opensAt: labSessions.opensAt,
+      dueAt: labSessions.dueAt,
+      lateWork: labSessions.lateWork,
+      lateDays: labSessions.lateDays,
+      cancelledAt: labSessions.cancelledAt,
+    })
+    .from(writeUps)
+    .innerJoin(labSessions, and(eq(labSessions.id, writeUps.labSessionId), eq(labSessions.schoolId, writeUps.schoolId)))
+    .where(and(eq(writeUps.id, sql.placeholder("id")), eq(writeUps.schoolId, sql.placeholder("schoolId"))))
+    .prepare(),
+);
 
 /** Saves the results tables a group shares (group lab sessions), with their own revision. */
 export function saveGroupTables({ actor, writeUpId, revision, tables, now = new Date() }: { actor: Actor; writeUpId: string; revision: number; tables: GroupTables; now?: Date }) {

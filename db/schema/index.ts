@@ -9,3 +9,4 @@ export * from "./practicals";
 export * from "./write-ups";
 export * from "./marking";
 export * from "./evidence";
+export * from "./rate-limits";

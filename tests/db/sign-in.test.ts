@@ -25,7 +25,8 @@ afterAll(() => {
   }
 });
 
-// Counters live in memory for the whole file, so every test uses its own e-mails and addresses.
+// Counters live in the database (rate_limits); one in-memory database serves these tests, so each
+// uses its own e-mails and addresses.
 let n = 0;
 const freshEmail = () => `rate-${++n}@test.example`;
 const freshIp = () => {
@@ -44,6 +45,10 @@ async function isBlocked(email: string, ip: string): Promise<boolean> {
 }
 
 describe("sign-in rate limiting", () => {
+  beforeAll(() => {
+    freshDatabase();
+  });
+
   it(`blocks an account after ${PER_ACCOUNT} failures, for up to 15 minutes`, async () => {
     const email = freshEmail();
     const ip = freshIp();

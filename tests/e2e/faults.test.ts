@@ -7,12 +7,13 @@ import S3rver from "s3rver";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { E2E_DIRS, E2E_DIST_DIR } from "./support/dirs";
+import { signInOverHttp } from "../helpers/http-sign-in";
 
 // Faults against real processes: a second production server from the same build, with its own
 // database, is killed with SIGKILL in the middle of an autosave load and started again. What was
 // acknowledged is compared with what SQLite kept, and SQLite's own integrity check is run.
 
-const NEXT_BIN = path.join("node_modules", "next", "dist", "bin", "next");
+const SERVE = path.join("scripts", "serve.mjs");
 const PASSWORD = "lab-notebook-demo";
 const runDir = path.resolve(E2E_DIRS.root, `faults-${process.pid}`);
 const dbFile = path.join(runDir, "meniscus.db");
@@ -35,7 +36,9 @@ async function startServer(extra: Record<string, string> = {}): Promise<ChildPro
   const env: NodeJS.ProcessEnv = { ...process.env, NEXT_DIST_DIR: E2E_DIST_DIR, NEXT_TELEMETRY_DISABLED: "1", PORT: String(port), DATABASE_PATH: dbFile, MAIL_FAKE_PORT: "0", S3_FAKE_PORT: "0", APP_URL: base, NEXTAUTH_URL: base, ...extra };
   for (const key of Object.keys(env)) if (key === "NODE_ENV" || key.startsWith("VITEST") || key.startsWith("__VITEST")) Reflect.deleteProperty(env, key);
   const out = fs.openSync(path.join(runDir, "server.log"), "a");
-  const child = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(port), "-H", "127.0.0.1"], { env, stdio: ["ignore", out, out] });
+  // Two workers as `npm start` runs them, in a process group of their own so that a kill can take
+  // down every process at once, as a crash of the machine's server would.
+  const child = spawn(process.execPath, [SERVE, "-p", String(port), "-H", "127.0.0.1"], { env: { WEB_CONCURRENCY: "2", ...env }, stdio: ["ignore", out, out], detached: true });
   fs.closeSync(out);
   const deadline = Date.now() + 90_000;
   while (Date.now() < deadline && child.exitCode === null) {
@@ -49,33 +52,17 @@ async function startServer(extra: Record<string, string> = {}): Promise<ChildPro
   throw new Error(`The second server did not start:\n${fs.readFileSync(path.join(runDir, "server.log"), "utf8").slice(-3000)}`);
 }
 
+/** SIGKILL to the whole process group (the launcher and its workers at once); SIGTERM to the launcher, which stops its workers. */
+function kill(child: ChildProcess, signal: "SIGKILL" | "SIGTERM") {
+  if (signal === "SIGKILL") process.kill(-child.pid!, "SIGKILL");
+  else child.kill(signal);
+}
+
 function exited(child: ChildProcess): Promise<void> {
   return child.exitCode !== null || child.signalCode !== null ? Promise.resolve() : new Promise((r) => child.once("exit", () => r()));
 }
 
-async function signIn(email: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const i = pair!.indexOf("=");
-      jar.set(pair!.slice(0, i), pair!.slice(i + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrf = await fetch(`${base}/api/auth/csrf`);
-  keep(csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie(), origin: base },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true", callbackUrl: `${base}/` }),
-  });
-  keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`Could not sign in ${email}: HTTP ${res.status}`);
-  return cookie();
-}
+const signIn = (email: string) => signInOverHttp(base, email, PASSWORD);
 
 type Writer = { email: string; writeUpId: string; labSessionId: string; cookie: string; content: Record<string, unknown>; acked: { revision: number; text: string } | null; inFlight: { revision: number; text: string } | null; revision: number };
 
@@ -146,7 +133,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   if (server && server.exitCode === null && server.signalCode === null) {
-    server.kill("SIGKILL");
+    kill(server, "SIGKILL");
     await exited(server);
   }
 });
@@ -157,7 +144,7 @@ describe("faults", () => {
     const loops = writers.map((w) => autosaveLoop(w, stop));
     await new Promise((r) => setTimeout(r, 1500));
     const killed = server!;
-    killed.kill("SIGKILL");
+    kill(killed, "SIGKILL");
     await exited(killed);
     stop.now = true;
     await Promise.all(loops);
@@ -192,7 +179,7 @@ describe("faults", () => {
 
   it("answers saves on a read-only database with a clear 503, and still shows the work", async () => {
     const running = server!;
-    running.kill("SIGTERM");
+    kill(running, "SIGTERM");
     await exited(running);
     server = await startServer({ DATABASE_READONLY: "1" });
     const w = writers[0]!;
@@ -213,7 +200,7 @@ describe("faults", () => {
 
   it("gives a clear retry, not a broken record, when the S3 server goes away during an upload", async () => {
     const running = server!;
-    running.kill("SIGTERM");
+    kill(running, "SIGTERM");
     await exited(running);
     const s3Dir = path.join(runDir, "s3");
     const s3Port = await freePort();

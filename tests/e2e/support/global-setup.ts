@@ -18,6 +18,7 @@ declare module "vitest" {
 }
 
 const NEXT_BIN = path.join("node_modules", "next", "dist", "bin", "next");
+const SERVE = path.join("scripts", "serve.mjs");
 const log = (msg: string) => console.log(`[e2e] ${msg}`);
 
 /** The environment for next build and next start: this one without vitest's own settings. */
@@ -145,8 +146,9 @@ export default async function setup(project: TestProject) {
     const databasePath = path.join(runDir, "meniscus.db");
     const logFile = path.join(runDir, "server.log");
     const out = fs.openSync(logFile, "a");
-    server = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(port), "-H", "127.0.0.1"], {
-      env: serverEnv({ ...dirs, PORT: String(port), DATABASE_PATH: databasePath, MAIL_FAKE_PORT: "0", S3_FAKE_PORT: "0", APP_URL: baseURL, NEXTAUTH_URL: baseURL }),
+    // Two workers, as `npm start` runs on a two-core machine (scripts/serve.mjs).
+    server = spawn(process.execPath, [SERVE, "-p", String(port), "-H", "127.0.0.1"], {
+      env: serverEnv({ ...dirs, WEB_CONCURRENCY: "2", PORT: String(port), DATABASE_PATH: databasePath, MAIL_FAKE_PORT: "0", S3_FAKE_PORT: "0", APP_URL: baseURL, NEXTAUTH_URL: baseURL }),
       stdio: ["ignore", out, out],
     });
     fs.closeSync(out);
