@@ -72,7 +72,13 @@ export async function readJson<S extends z.ZodType>(req: Request, schema: S): Pr
   if (!type.toLowerCase().includes("application/json")) throw new AppError("unsupported_media_type", "Send the data as JSON (Content-Type: application/json).");
   const length = Number(req.headers.get("content-length") ?? 0);
   if (length > MAX_JSON_BYTES) throw new AppError("payload_too_large", "That request is too large.");
-  const text = await req.text();
+  let text: string;
+  try {
+    text = await req.text();
+  } catch {
+    // The connection closed before the whole body arrived (a dropped network, a closed tab).
+    throw new AppError("bad_request", "The request was cut off before it arrived whole. Try again.");
+  }
   if (text.length > MAX_JSON_BYTES) throw new AppError("payload_too_large", "That request is too large.");
   let body: unknown;
   try {

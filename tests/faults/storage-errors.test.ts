@@ -47,3 +47,24 @@ describe("storage failures become a clear 503", () => {
     expect(JSON.stringify(await res.json())).not.toMatch(/secret internals/);
   });
 });
+
+describe("a request cut off on its way in", () => {
+  it("is a 400 asking to try again, not a 500 logged as a server fault", async () => {
+    const { z } = await import("zod");
+    const { readJson } = await import("@/lib/api");
+    // A body that stops part-way, as when the connection drops mid-upload (Node's fetch Request
+    // errors its body stream the same way when the socket closes).
+    const body = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(new TextEncoder().encode('{"revision":3,"content":{"sect'));
+        controller.error(Object.assign(new Error("aborted"), { code: "ECONNRESET" }));
+      },
+    });
+    const req = new Request("http://localhost:3000/api/write-ups/x", { method: "PUT", headers: { "content-type": "application/json" }, body, duplex: "half" } as RequestInit);
+    const err = await readJson(req, z.object({ revision: z.number() })).catch((e: unknown) => e);
+    const res = errorResponse(err);
+    expect(res.status).toBe(400);
+    const answer = (await res.json()) as { error: { code: string; message: string } };
+    expect(answer.error.message).toMatch(/cut off.*Try again/);
+  });
+});

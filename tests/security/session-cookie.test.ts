@@ -53,6 +53,19 @@ describe("reading the session cookie", () => {
     expect(await sessionUserId()).toBeNull();
   });
 
+  it("stops naming the person once the token has expired, even though it was read before", async () => {
+    jar.set(NAME, await encode({ token: { sub: "user-789" }, secret: SECRET, maxAge: 60 }));
+    expect(await sessionUserId()).toBe("user-789");
+    expect(await sessionUserId()).toBe("user-789"); // the second read comes from the cache
+    vi.useFakeTimers({ toFake: ["Date"] });
+    try {
+      vi.setSystemTime(Date.now() + 60_000 + 16_000); // past expiry and next-auth's 15 s tolerance
+      expect(await sessionUserId()).toBeNull();
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+
   it("refuses a token without a person in it", async () => {
     jar.set(NAME, await encode({ token: { name: "nobody" }, secret: SECRET, maxAge: 60 }));
     expect(await sessionUserId()).toBeNull();
