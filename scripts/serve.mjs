@@ -46,7 +46,7 @@ if (!process.env.SMTP_URL && process.env.MAIL_FAKE_PORT === "0") process.env.MAI
 if (!process.env.S3_ENDPOINT && process.env.S3_FAKE_PORT === "0") process.env.S3_FAKE_PORT = String(await freePort());
 
 const count = workerCount();
-cluster.setupPrimary({ exec: nextBin, args: ["start", ...process.argv.slice(2)], execArgv: [...process.execArgv, ...(process.env.SEMI ? [`--max-semi-space-size=${process.env.SEMI}`] : [])] });
+cluster.setupPrimary({ exec: nextBin, args: ["start", ...process.argv.slice(2)] });
 
 const workers = new Map(); // worker number -> cluster worker
 const quickExits = new Map(); // worker number -> exits within a few seconds of starting, in a row
