@@ -38,6 +38,9 @@ export function openDatabase(file: string): Handle {
   // WAL with synchronous=NORMAL is durable against application crashes (the case we test by
   // killing the server); FULL also survives power loss on the machine, at a cost per commit.
   sqlite.pragma(`synchronous = ${process.env.DATABASE_SYNCHRONOUS === "FULL" ? "FULL" : "NORMAL"}`);
+  // Under scripts/serve.mjs a background thread checkpoints the log every second, so a request
+  // never waits for the disk; this connection only steps in if the log passes 20,000 pages (80 MB).
+  if (process.env.MENISCUS_WAL_CHECKPOINTER === "1") sqlite.pragma("wal_autocheckpoint = 20000");
   const db = drizzle(sqlite, { schema });
   migrate(db, { migrationsFolder: migrationsFolder() });
   // Maintenance: DATABASE_READONLY=1 serves reading but refuses every write (SQLITE_READONLY,

@@ -9,7 +9,7 @@
  * Sizes come from the environment (defaults are the full school):
  *   BENCH_STUDENTS=2000 BENCH_CLASSES=80 BENCH_PRACTICALS=40 BENCH_WRITE_UPS=20000
  *   BENCH_CONNECTIONS=200 (autosave and checks) BENCH_PAGE_CONNECTIONS=10 BENCH_SECONDS=10
- *   BENCH_WARMUP=3 (seconds of the same load before each row, not counted) BENCH_AUTOSAVE_RATE=500
+ *   BENCH_WARMUP=8 (seconds of the same load before each row, not counted) BENCH_AUTOSAVE_RATE=500
  *   BENCH_PAGE_RATE=20 (page views a second for the paced page rows)
  *   BENCH_SKIP_BUILD=1 reuses .next-bench; BENCH_KEEP=1 keeps the temporary folder;
  *   BENCH_OUT=bench-results/latest.md (set BENCH_OUT= to write nothing).
@@ -44,7 +44,9 @@ const AUTOSAVE_RATE = num("BENCH_AUTOSAVE_RATE", 500);
 const WORKERS = num("WEB_CONCURRENCY", Math.max(1, Math.min(4, os.availableParallelism())));
 const PAGE_CONNECTIONS = num("BENCH_PAGE_CONNECTIONS", 10);
 const SECONDS = num("BENCH_SECONDS", 10);
-const WARMUP = Number(process.env.BENCH_WARMUP ?? 3);
+const WARMUP = Number(process.env.BENCH_WARMUP ?? 8);
+/** autocannon's own default: an answer slower than this is an error. */
+const REQUEST_TIMEOUT_S = 10;
 const PAGE_RATE = num("BENCH_PAGE_RATE", 20);
 const OUT = process.env.BENCH_OUT ?? path.join("bench-results", "latest.md");
 const ROWS = new Set((process.env.BENCH_ROWS ?? "autosave,checks,pages,pdf,writeup").split(",").map((r) => r.trim()));
@@ -136,58 +138,66 @@ function percentile(sorted: number[], p: number): number {
 /** Groups a paced load is split into (see `runAutocannon`). */
 const PACED_GROUPS = 20;
 
+type Tally = { requests: number; errors: number; non2xx: number; statusCodes: Record<string, number> };
+
 /**
  * One autocannon run, or for a paced load (`overallRate`) PACED_GROUPS runs started evenly across
  * the first second. autocannon paces each connection by letting it send its share at the start
  * of every second, so one run would send the whole second's requests in one burst; students'
  * saves arrive spread out, which the staggered groups approximate (a twentieth of the second's
- * requests every 50 ms). Every response time is kept for p50/p95/p99 (autocannon's own summary
- * has no p95).
+ * requests every 50 ms). The first `warmup` seconds are not counted: the connections stay open
+ * from the warm-up into the measurement, as a browser's do, so what is measured is neither the
+ * server compiling the route's code on its first requests nor 200 connections opening at once.
+ * Counts answers and errors (timeouts included) from the end of the warm-up, and passes each
+ * counted answer's time to `onResponse`.
  */
-async function runAutocannon(opts: autocannon.Options, duration: number, onResponse?: (status: number, ms: number, at: number) => void) {
+async function runAutocannon(opts: autocannon.Options, warmup: number, seconds: number, onResponse?: (status: number, ms: number, at: number) => void): Promise<Tally> {
   const connections = opts.connections ?? 10;
   const groups = opts.overallRate ? Math.min(PACED_GROUPS, connections) : 1;
   const t0 = Date.now();
-  const results = await Promise.all(
+  const from = t0 + warmup * 1000;
+  const tally: Tally = { requests: 0, errors: 0, non2xx: 0, statusCodes: {} };
+  await Promise.all(
     Array.from({ length: groups }, async (_, g) => {
       if (g > 0) await new Promise((r) => setTimeout(r, (1000 * g) / groups));
       const share = Math.floor(connections / groups) + (g < connections % groups ? 1 : 0);
       const part = groups > 1 ? { connections: share, overallRate: (opts.overallRate! * share) / connections } : {};
-      return new Promise<autocannon.Result>((resolve, reject) => {
-        const instance = autocannon({ ...opts, ...part, duration }, (err, res) => (err ? reject(err) : resolve(res)));
-        instance.on("response", (_client: unknown, status: number, _bytes: number, responseTime: number) => onResponse?.(status, responseTime, Date.now() - t0));
+      const duration = warmup + seconds - (Date.now() - t0) / 1000;
+      await new Promise<void>((resolve, reject) => {
+        const instance = autocannon({ timeout: REQUEST_TIMEOUT_S, ...opts, ...part, duration }, (err) => (err ? reject(err) : resolve()));
+        instance.on("response", (_client: unknown, status: number, _bytes: number, responseTime: number) => {
+          const now = Date.now();
+          if (now < from) return;
+          tally.requests++;
+          tally.statusCodes[status] = (tally.statusCodes[status] ?? 0) + 1;
+          if (status < 200 || status > 299) {
+            tally.non2xx++;
+            tally.errors++;
+          }
+          onResponse?.(status, responseTime, now - from);
+        });
+        // A timeout is reported when it runs out, 10 s after the request was sent: it belongs to
+        // the part of the run in which it was sent.
+        instance.on("reqError", (err: Error) => {
+          const sentAt = Date.now() - (/timed out/.test(err.message) ? REQUEST_TIMEOUT_S * 1000 : 0);
+          if (sentAt >= from) tally.errors++;
+        });
       });
     }),
   );
-  const statusCodes: Record<string, number> = {};
-  for (const r of results) for (const [code, { count }] of Object.entries(r.statusCodeStats ?? {}) as [string, { count: number }][]) statusCodes[code] = (statusCodes[code] ?? 0) + count;
-  return {
-    requests: results.reduce((n, r) => n + r.requests.total, 0),
-    seconds: Math.max(...results.map((r) => r.duration || duration)),
-    errors: results.reduce((n, r) => n + r.errors + r.timeouts + r.non2xx, 0),
-    non2xx: results.reduce((n, r) => n + r.non2xx, 0),
-    statusCodes,
-  };
+  return tally;
 }
 
-/**
- * Runs the load for BENCH_WARMUP seconds without counting (the server compiles and optimises the
- * route's code on its first requests, as it would early in a school day), calls `between`, then
- * measures for BENCH_SECONDS.
- */
-async function measure(name: string, who: string, opts: autocannon.Options, between?: () => void | Promise<void>): Promise<Row> {
-  if (WARMUP > 0) {
-    await runAutocannon(opts, WARMUP);
-    await between?.();
-  }
+/** Measures BENCH_SECONDS of a load after BENCH_WARMUP seconds of the same load (see `runAutocannon`). */
+async function measure(name: string, who: string, opts: autocannon.Options): Promise<Row> {
   const times: number[] = [];
-  const result = await runAutocannon(opts, SECONDS, (status, ms, at) => {
+  const tally = await runAutocannon(opts, WARMUP, SECONDS, (status, ms, at) => {
     times.push(ms);
     if (TRACE) trace.push(`${name}\t${at}\t${status}\t${ms.toFixed(1)}`);
   });
   times.sort((a, b) => a - b);
-  const row: Row = { name, who, connections: opts.connections ?? 10, requests: result.requests, perSecond: result.requests / result.seconds, p50: percentile(times, 50), p95: percentile(times, 95), p99: percentile(times, 99), errors: result.errors };
-  log(`${name}: ${row.perSecond.toFixed(0)} req/s, p50 ${row.p50.toFixed(1)} ms, p95 ${row.p95.toFixed(1)} ms, p99 ${row.p99.toFixed(1)} ms, errors ${row.errors}${result.non2xx ? ` (non-2xx ${result.non2xx}: ${JSON.stringify(result.statusCodes)})` : ""}`);
+  const row: Row = { name, who, connections: opts.connections ?? 10, requests: tally.requests, perSecond: tally.requests / SECONDS, p50: percentile(times, 50), p95: percentile(times, 95), p99: percentile(times, 99), errors: tally.errors };
+  log(`${name}: ${row.perSecond.toFixed(0)} req/s, p50 ${row.p50.toFixed(1)} ms, p95 ${row.p95.toFixed(1)} ms, p99 ${row.p99.toFixed(1)} ms, errors ${row.errors}${tally.non2xx ? ` (answers: ${JSON.stringify(tally.statusCodes)})` : ""}`);
   return row;
 }
 
@@ -321,7 +331,7 @@ async function main() {
       },
     });
     let saveNo = 0;
-    // Between rows, and after a warm-up, each student carries on from the revision stored (a
+    // Before each row, each student carries on from the revision stored (a
     // save still in flight when a row ends is committed without its answer being counted, as
     // when a tab closes; the editor then starts from what is stored).
     const syncRevisions = async () => {
@@ -353,11 +363,12 @@ async function main() {
             }
           },
         })),
-      }, syncRevisions);
+      });
     if (ROWS.has("autosave")) {
       // Flat out: every student's connection sends its next save the moment the last one is
       // answered, so this is the most the server can take; latency here is mostly queueing
       // (200 connections / throughput).
+      await syncRevisions();
       rows.push({ ...(await autosave("autosave write-up, flat out (PUT /api/write-ups/[id])", {})), kind: "save-max" });
       // At the target rate: the same 200 students saving 500 times a second between them (one save
       // each every 0.4 s, far more often than the editor's autosave), as a school day would send

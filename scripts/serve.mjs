@@ -14,6 +14,7 @@
 // them all.
 import cluster from "node:cluster";
 import net from "node:net";
+import { Worker } from "node:worker_threads";
 import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -54,8 +55,20 @@ let stopping = false;
 let stopCode = 0;
 let othersStarted = false;
 
+// The WAL is checkpointed by a background thread here (scripts/wal-checkpointer.mjs), not inside
+// the workers' requests; workers only checkpoint themselves if the log passes 80 MB.
+const databaseFile = process.env.DATABASE_PATH || path.join(process.cwd(), "data", "meniscus.db");
+const checkpointHere = process.env.DATABASE_READONLY !== "1";
+
+function startCheckpointer() {
+  const thread = new Worker(new URL("./wal-checkpointer.mjs", import.meta.url), { workerData: { file: databaseFile, everyMs: 1000 } });
+  thread.on("message", (msg) => console.error(`[meniscus] WAL checkpoint failed: ${msg.error}`));
+  thread.on("error", (e) => console.error(`[meniscus] WAL checkpointer stopped: ${e.message}`));
+  thread.unref();
+}
+
 function fork(n) {
-  const worker = cluster.fork({ MENISCUS_WORKER: String(n), MENISCUS_WORKERS: String(count) });
+  const worker = cluster.fork({ MENISCUS_WORKER: String(n), MENISCUS_WORKERS: String(count), ...(checkpointHere ? { MENISCUS_WAL_CHECKPOINTER: "1" } : {}) });
   const started = Date.now();
   workers.set(n, worker);
   worker.on("message", (msg) => {
@@ -82,6 +95,8 @@ function fork(n) {
 function startOthers() {
   if (othersStarted) return;
   othersStarted = true;
+  // Worker 1 has created and migrated the database by now.
+  if (checkpointHere) startCheckpointer();
   for (let n = 2; n <= count; n++) fork(n);
   if (count > 1) log(`${count} workers serving`);
 }
