@@ -14,7 +14,7 @@ import { fetchJson } from "@/lib/fetch-json";
 import { AddStudents } from "./add-students";
 import type { ClassDetail } from "./api-types";
 import { ClassForm } from "./class-form";
-import { ConfirmAction } from "./confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { errorMessage, LoadError, Loading } from "./query-state";
 import { RosterImport } from "./roster-import";
 
@@ -60,7 +60,7 @@ function Roster({ cls }: { cls: ClassDetail }) {
                 <Td>{s.yearGroup ?? "—"}</Td>
                 <Td className="min-w-44">{s.guardians.length ? s.guardians.map((g) => `${g.name} (${g.relationship})`).join(", ") : <span className="text-muted">None linked</span>}</Td>
                 <Td className="min-w-40">
-                  <ConfirmAction
+                  <ConfirmButton
                     size="sm"
                     label={<>Remove<span className="sr-only"> {s.name}</span></>}
                     question={`Take ${s.name} out of ${cls.name}? Their account, other classes and work are kept.`}
@@ -116,7 +116,7 @@ export function ClassDetailView({ id }: { id: string }) {
           lead={`${cls.subject} · Year ${cls.yearGroup} · ${cls.academicYear} · ${cls.teachers.length ? `Taught by ${cls.teachers.map((t) => t.name).join(" and ")}` : "No teacher yet"}`}
           actions={
             cls.archived ? null : (
-              <ConfirmAction
+              <ConfirmButton
                 variant="secondary"
                 label="Archive class"
                 question={`Archive ${cls.name}? It disappears from everyone's class lists. Its students, work and marks are kept, and you can restore it.`}

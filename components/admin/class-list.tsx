@@ -13,7 +13,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import { fetchJson } from "@/lib/fetch-json";
 import type { ClassRow } from "./api-types";
 import { academicYearOf, ClassForm } from "./class-form";
-import { ConfirmAction } from "./confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { errorMessage, LoadError, Loading } from "./query-state";
 
 /** All classes, with a form to create one and archive / restore buttons. */
@@ -140,7 +140,7 @@ export function ClassList() {
                         Restore<span className="sr-only"> {c.name}</span>
                       </button>
                     ) : (
-                      <ConfirmAction
+                      <ConfirmButton
                         size="sm"
                         variant="secondary"
                         label={<>Archive<span className="sr-only"> {c.name}</span></>}

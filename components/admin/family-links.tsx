@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
 import type { PersonDetail, PickerPerson } from "./api-types";
-import { ConfirmAction } from "./confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { PersonPicker } from "./person-picker";
 import { errorMessage } from "./query-state";
 
@@ -74,7 +74,7 @@ export function FamilyLinks({ person, side }: { person: PersonDetail; side: Side
                 </Link>{" "}
                 <span className="text-muted">({l.relationship})</span>
               </span>
-              <ConfirmAction
+              <ConfirmButton
                 size="sm"
                 label={<>Unlink<span className="sr-only"> {l.name}</span></>}
                 question={`Unlink ${l.name} from ${person.name}? ${side === "guardians" ? `${l.name} will no longer see ${person.name}'s progress.` : `${person.name} will no longer see ${l.name}'s progress.`}`}

@@ -13,7 +13,7 @@ import { ROLE_LABELS } from "@/lib/roles";
 import { formatDateTime } from "@/lib/utils";
 import type { AuditPage, PersonDetail } from "./api-types";
 import { AuditTable } from "./audit-list";
-import { ConfirmAction } from "./confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { EraseLeaverCard, ErasedNotice, type Erased } from "./erase-leaver";
 import { FamilyLinks } from "./family-links";
 import { PersonDetailsForm } from "./person-details-form";
@@ -80,7 +80,7 @@ function AccountCard({ person, isSelf }: { person: PersonDetail; isSelf: boolean
         <div className="flex flex-wrap items-start gap-2">
           {canInvite ? (
             inv.state === "invited" ? (
-              <ConfirmAction
+              <ConfirmButton
                 variant="secondary"
                 label="Send the invitation again"
                 question={`Send a new invitation to ${person.email}? The link in the earlier e-mail will stop working.`}
@@ -97,7 +97,7 @@ function AccountCard({ person, isSelf }: { person: PersonDetail; isSelf: boolean
           {isSelf ? (
             <p className="text-sm text-muted">This is your own account, so you cannot deactivate it here.</p>
           ) : person.active ? (
-            <ConfirmAction
+            <ConfirmButton
               label="Deactivate account"
               question={`Deactivate ${person.name}'s account? They are signed out at once and cannot sign in until an admin reactivates it. Nothing they have done is deleted.`}
               confirmLabel="Yes, deactivate"
@@ -105,7 +105,7 @@ function AccountCard({ person, isSelf }: { person: PersonDetail; isSelf: boolean
               onConfirm={() => setActive.mutate(false)}
             />
           ) : (
-            <ConfirmAction
+            <ConfirmButton
               variant="secondary"
               label="Reactivate account"
               question={`Reactivate ${person.name}'s account? They can sign in again with their password${inv.state === "set-up" ? "" : " once they have set one up"}.`}

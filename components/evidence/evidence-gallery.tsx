@@ -2,7 +2,7 @@
 
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useId, useRef, useState, type ReactNode } from "react";
-import { ConfirmAction } from "@/components/admin/confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { Button } from "@/components/ui/button";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
 import type { EvidencePhotoJson, EvidenceTarget } from "./types";
@@ -171,7 +171,7 @@ function OwnPhotoControls({ target, photo, index }: { target: EvidenceTarget; ph
       <div aria-live="polite" className="text-sm">
         {status ? <p className={status.tone === "bad" ? "font-semibold text-bad" : status.tone === "good" ? "text-good" : "text-muted"}>{status.text}</p> : null}
       </div>
-      <ConfirmAction size="sm" label={deleting ? "Deleting…" : `Delete`} busy={deleting} question={`Delete photo ${index + 1}? It is removed for good.`} confirmLabel="Delete photo" onConfirm={() => void remove()} className="self-start" />
+      <ConfirmButton size="sm" label={deleting ? "Deleting…" : `Delete`} busy={deleting} question={`Delete photo ${index + 1}? It is removed for good.`} confirmLabel="Delete photo" onConfirm={() => void remove()} className="self-start" />
     </div>
   );
 }

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { cn } from "@/lib/utils";
-import { ConfirmButton } from "./confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { assignStudent, groupProblems, makeGroups, MAX_GROUP_SIZE, MIN_GROUP_SIZE, nextGroupId, nextGroupName, type LabGroupDraft } from "./groups";
 
 export type RosterStudent = { id: string; name: string; active?: boolean };
@@ -60,6 +60,7 @@ export function GroupBuilder({
           <ConfirmButton
             label="Auto-make groups of 3"
             variant="secondary"
+            tone="danger"
             question="Replace the groups you have made with new groups of 3, in register order?"
             confirmLabel="Replace my groups"
             backOutLabel="Keep my groups"

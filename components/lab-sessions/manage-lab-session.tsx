@@ -7,7 +7,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
 import type { LabSessionInput } from "@/lib/validation/practicals";
-import { ConfirmButton } from "./confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { valuesFromSession } from "./form-values";
 import { LabSessionForm } from "./lab-session-form";
 

@@ -5,7 +5,7 @@ import type { CheckSpec } from "@/lib/validation/practicals";
 import type { StoredAnswer } from "@/lib/validation/write-ups";
 import { formatDateTime } from "@/lib/utils";
 import { VerdictMark } from "./status";
-import type { StaffCheckState } from "./types";
+import type { CheckStateJson } from "@/components/write-up/types";
 
 const perRow = (spec: CheckSpec) => spec.kind === "reciprocal-time" || spec.kind === "mean-of-repeats";
 
@@ -14,7 +14,7 @@ const perRow = (spec: CheckSpec) => spec.kind === "reciprocal-time" || spec.kind
  * verdict, the value expected from this student's own data, how far off the answer is, the
  * likely slip and the reason.
  */
-export function CheckOutcomeView({ spec, answer, state, footer }: { spec: CheckSpec; answer: StoredAnswer | undefined; state: StaffCheckState | undefined; footer?: ReactNode }) {
+export function CheckOutcomeView({ spec, answer, state, footer }: { spec: CheckSpec; answer: StoredAnswer | undefined; state: CheckStateJson | undefined; footer?: ReactNode }) {
   const o = state?.outcome;
   const headingId = `check-${spec.id}-heading`;
   return (

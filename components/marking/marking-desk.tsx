@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useRef, useState, type ReactNode } from "react";
-import { ConfirmAction } from "@/components/admin/confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Textarea } from "@/components/ui/field";
@@ -282,7 +282,7 @@ export function MarkingDesk({ initial }: { initial: MarkingItemJson }) {
       )}
       {view.canReopen ? (
         <div className="border-t border-line pt-3 no-print">
-          <ConfirmAction
+          <ConfirmButton
             label="Reopen for the student"
             variant="secondary"
             size="sm"

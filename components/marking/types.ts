@@ -1,4 +1,5 @@
-import type { CheckOutcome, StudentCheckView, Verdict } from "@/lib/checks/types";
+import type { CheckStateJson } from "@/components/write-up/types";
+import type { Verdict } from "@/lib/checks/types";
 import type { PracticalContent } from "@/lib/validation/practicals";
 import type { GroupTables, WriteUpContent } from "@/lib/validation/write-ups";
 
@@ -37,8 +38,6 @@ export type BenchRow = {
   adjusted: boolean;
 };
 
-/** One check's latest result on the staff view: what the student saw plus the whole outcome. */
-export type StaffCheckState = StudentCheckView & { stale: boolean; ranAt: number; outcome?: CheckOutcome };
 
 /** The teacher's marks as a reader of the write-up sees them (hidden from a blind moderator). */
 export type ReaderMarkJson = {
@@ -65,7 +64,7 @@ export type ReaderViewJson = {
   tables: GroupTables;
   mark: ReaderMarkJson | null;
   group: { id: string; name: string; members: { id: string; name: string }[] } | null;
-  checks: Record<string, StaffCheckState>;
+  checks: Record<string, CheckStateJson>;
   practical: { id: string; title: string; version: number; content: PracticalContent };
   labSession: { id: string; className: string; dueAt: string };
   canReopen: boolean;

@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useState } from "react";
-import { ConfirmAction } from "@/components/admin/confirm-action";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { Badge } from "@/components/ui/badge";
 import { PageHeader } from "@/components/ui/page-header";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
@@ -152,7 +152,7 @@ export function SampleView({ initial }: { initial: SampleJson }) {
             Finishing closes the sample: nothing more can be second-marked, added or swapped.
           </p>
           <div>
-            <ConfirmAction label="Finish this sample" variant="secondary" question="Finish this sample? Second marking, adding and swapping stop; the sample stays for the record." confirmLabel="Finish it" busy={complete.isPending} onConfirm={() => complete.mutate()} />
+            <ConfirmButton label="Finish this sample" variant="secondary" question="Finish this sample? Second marking, adding and swapping stop; the sample stays for the record." confirmLabel="Finish it" busy={complete.isPending} onConfirm={() => complete.mutate()} />
           </div>
         </div>
       ) : null}

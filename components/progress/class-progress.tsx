@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useId, useMemo, useState } from "react";
 import { useMutation } from "@tanstack/react-query";
-import { ConfirmButton } from "@/components/lab-sessions/confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { buttonClasses } from "@/components/ui/button";
@@ -27,6 +27,7 @@ function SendReports({ classId, className, families }: { classId: string; classN
     <div className="flex flex-col gap-2">
       <ConfirmButton
         variant="secondary"
+        tone="danger"
         label={send.isPending ? "Sending the reports…" : "E-mail term reports to families"}
         question={`E-mail this term's progress report (PDF) to the parents and guardians of ${plural(families, "student")} in ${className}? Families who turned e-mails off are skipped. Sent e-mails cannot be taken back.`}
         confirmLabel="Yes, e-mail the reports"

@@ -6,7 +6,7 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useId, useRef, useState } from "react";
 import { set, useFieldArray, useForm, useWatch, type Control, type FieldErrors, type Path, type Resolver, type UseFormRegister } from "react-hook-form";
-import { ConfirmButton } from "@/components/lab-sessions/confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { ErrorSummary, type SummaryItem } from "@/components/lab-sessions/error-summary";
 import { flattenErrors, messageAt } from "@/components/lab-sessions/form-errors";
 import { Alert } from "@/components/ui/alert";
@@ -304,6 +304,7 @@ export function RubricEditor(props: Props) {
             <ConfirmButton
               label="Archive"
               variant="ghost"
+              tone="danger"
               question={`Archive this rubric? It stays on record but leaves the library list. Practicals that copied it keep their own copy.${formState.isDirty ? " Your unsaved changes will not be saved." : ""}`}
               confirmLabel="Archive it"
               backOutLabel="Keep it"

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ApiError, fetchJson } from "@/lib/fetch-json";
-import { ConfirmButton } from "../confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 
 function message(e: unknown): string {
   return e instanceof ApiError ? e.message : "Something went wrong. Please try again.";
@@ -83,6 +83,9 @@ export function PracticalManageActions({ practicalId, title, archived, openAfter
           Duplicate
         </Button>
         <ConfirmButton
+          tone="caution"
+          size="sm"
+          variant="secondary"
           label={archived ? "Restore" : "Archive"}
           busy={busy}
           question={

@@ -6,7 +6,7 @@ import { Select } from "@/components/ui/field";
 import { CHECK_KINDS, CHECK_VISIBILITY, type CheckKind, type CheckSpec, type TableTemplate } from "@/lib/validation/practicals";
 import { cn } from "@/lib/utils";
 import { CHECK_COLUMN_FIELDS, CHECK_KIND_HINTS, CHECK_KIND_LABELS, CHECK_VISIBILITY_LABELS, DEFAULT_TOLERANCE, changeCheckKind, makeCheck, moveCheckToTable, suggestedUnit } from "../../check-kinds";
-import { ConfirmButton } from "../../confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { fieldDomId, type Draft } from "../../draft";
 import { newPartId } from "../../ids";
 import { COMMON_UNITS, columnHeader } from "../../units";
@@ -158,7 +158,7 @@ function CheckCard({ check, index, count, tables, onChange, onMove, onRemove }: 
           <Button size="sm" variant="ghost" disabled={index === count - 1} onClick={() => onMove(1)} aria-label={`Move check ${index + 1} down`}>
             ↓ Down
           </Button>
-          <ConfirmButton label="Remove check" variant="ghost" question={`Remove check ${index + 1} (${check.label || CHECK_KIND_LABELS[check.kind]})? Rubric criteria linked to it lose the link.`} confirmLabel="Yes, remove it" onConfirm={onRemove} />
+          <ConfirmButton tone="caution" size="sm" label="Remove check" variant="ghost" question={`Remove check ${index + 1} (${check.label || CHECK_KIND_LABELS[check.kind]})? Rubric criteria linked to it lose the link.`} confirmLabel="Yes, remove it" onConfirm={onRemove} />
         </div>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">

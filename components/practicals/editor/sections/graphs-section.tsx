@@ -3,7 +3,7 @@
 import { Button } from "@/components/ui/button";
 import type { GraphSpec, TableTemplate } from "@/lib/validation/practicals";
 import { cn } from "@/lib/utils";
-import { ConfirmButton } from "../../confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { fieldDomId, type Draft } from "../../draft";
 import { newPartId } from "../../ids";
 import { columnHeader } from "../../units";
@@ -35,7 +35,7 @@ function GraphCard({ graph, index, tables, onChange, onRemove }: { graph: GraphS
           Graph {index + 1}
           {graph.title.trim() ? <span className="font-normal text-muted">: {graph.title}</span> : null}
         </h3>
-        <ConfirmButton label="Remove graph" variant="ghost" question={`Remove graph ${index + 1}?`} confirmLabel="Yes, remove it" onConfirm={onRemove} />
+        <ConfirmButton tone="caution" size="sm" label="Remove graph" variant="ghost" question={`Remove graph ${index + 1}?`} confirmLabel="Yes, remove it" onConfirm={onRemove} />
       </div>
       <TextField path={`${base}.title`} label="Graph title" hint="For example “Volume of gas against time”." value={graph.title} onChange={(title) => onChange({ ...graph, title })} />
       <SelectField

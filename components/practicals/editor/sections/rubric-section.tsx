@@ -8,7 +8,7 @@ import { ApiError, fetchJson } from "@/lib/fetch-json";
 import { rubricBodySchema, type PracticalContent, type RubricBody } from "@/lib/validation/practicals";
 import { cn, formatDate } from "@/lib/utils";
 import { CHECK_KIND_LABELS } from "../../check-kinds";
-import { ConfirmButton } from "../../confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { fieldDomId, type Draft } from "../../draft";
 import { newPartId } from "../../ids";
 import { ChoiceGroup, NumberField, PathErrors, TextAreaField, TextField, useErrorsUnder } from "../fields";
@@ -101,7 +101,7 @@ function CriterionCard({ criterion, index, rubric, checks, onChange, onRemove, o
           <Button size="sm" variant="ghost" disabled={index === rubric.criteria.length - 1} onClick={() => onMove(1)} aria-label={`Move criterion ${index + 1} down`}>
             ↓ Down
           </Button>
-          <ConfirmButton label="Remove criterion" variant="ghost" question={`Remove criterion ${index + 1} and its levels?`} confirmLabel="Yes, remove it" onConfirm={onRemove} />
+          <ConfirmButton tone="caution" size="sm" label="Remove criterion" variant="ghost" question={`Remove criterion ${index + 1} and its levels?`} confirmLabel="Yes, remove it" onConfirm={onRemove} />
         </div>
       </div>
       <TextField path={`${base}.title`} label="Criterion" hint="For example “Recording results”." value={criterion.title} onChange={(title) => onChange({ ...criterion, title })} />
@@ -202,7 +202,7 @@ function RubricLibrary({ hasRubric, checkIds, onUse }: { hasRubric: boolean; che
                 </p>
               </div>
               {hasRubric ? (
-                <ConfirmButton label="Use this rubric" question={`Replace this practical's rubric with “${r.title}”?`} confirmLabel="Yes, replace it" onConfirm={() => onUse(rubricFromLibrary(r.body, r.id, checkIds))} />
+                <ConfirmButton tone="caution" size="sm" variant="secondary" label="Use this rubric" question={`Replace this practical's rubric with “${r.title}”?`} confirmLabel="Yes, replace it" onConfirm={() => onUse(rubricFromLibrary(r.body, r.id, checkIds))} />
               ) : (
                 <Button size="sm" onClick={() => onUse(rubricFromLibrary(r.body, r.id, checkIds))}>
                   Use this rubric
@@ -294,6 +294,9 @@ export function RubricSection({ draft, change }: { draft: Draft; change: Change 
         <div className="flex flex-col gap-2 rounded-md border border-line bg-paper p-3 sm:flex-row sm:items-center sm:justify-between">
           <p className="text-sm">A competence record usually has two levels for every skill: “Not yet” and “Shown”.</p>
           <ConfirmButton
+            tone="caution"
+            size="sm"
+            variant="secondary"
             label="Use Not yet / Shown for every criterion"
             question="Replace every criterion's levels (and their descriptors) with “Not yet” and “Shown”?"
             confirmLabel="Yes, replace the levels"
@@ -327,7 +330,7 @@ export function RubricSection({ draft, change }: { draft: Draft; change: Change 
           {savingToLibrary ? "Saving to the library…" : "Save to the rubric library"}
         </Button>
         <RubricLibrary hasRubric checkIds={checks.map((c) => c.id)} onUse={applyRubric} />
-        <ConfirmButton label="Remove the rubric" variant="ghost" question="Remove this practical's rubric? The rubric library is not affected." confirmLabel="Yes, remove it" onConfirm={() => changeContent(change, "rubric", () => null)} />
+        <ConfirmButton tone="caution" size="sm" label="Remove the rubric" variant="ghost" question="Remove this practical's rubric? The rubric library is not affected." confirmLabel="Yes, remove it" onConfirm={() => changeContent(change, "rubric", () => null)} />
       </div>
       {saveState ? (
         <p aria-live="polite" className={cn("font-semibold", saveState.tone === "good" ? "text-good" : "text-bad")}>

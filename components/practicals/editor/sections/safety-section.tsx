@@ -4,7 +4,7 @@ import { Button } from "@/components/ui/button";
 import { EYE_PROTECTION, GHS_PICTOGRAMS, SIGNAL_WORDS, type GhsCode } from "@/lib/ghs";
 import type { PracticalContent } from "@/lib/validation/practicals";
 import { cn } from "@/lib/utils";
-import { ConfirmButton } from "../../confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { fieldDomId, type Draft } from "../../draft";
 import { GhsPictogram } from "../../ghs-pictogram";
 import { newPartId } from "../../ids";
@@ -64,6 +64,8 @@ function HazardCard({ hazard, index, onChange, onRemove }: { hazard: Hazard; ind
           {hazard.substance.trim() ? <span className="font-normal text-muted">: {hazard.substance}</span> : null}
         </h3>
         <ConfirmButton
+          tone="caution"
+          size="sm"
           label="Remove hazard"
           variant="ghost"
           question={`Remove hazard ${index + 1}${hazard.substance.trim() ? ` (${hazard.substance.trim()})` : ""} and what you wrote about it?`}

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
 import { COLUMN_ROLE_LABELS, COLUMN_ROLES, DERIVED_FORMULA_LABELS, DERIVED_FORMULAS, type ColumnTemplate, type TableTemplate } from "@/lib/validation/practicals";
 import { cn } from "@/lib/utils";
-import { ConfirmButton } from "../../confirm-button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { fieldDomId, type Draft } from "../../draft";
 import { newPartId } from "../../ids";
 import { parseTypedNumber } from "../../numbers";
@@ -296,6 +296,8 @@ function TableCard({ table, index, onChange, onRemove, usedBy }: { table: TableT
           {table.title.trim() ? <span className="font-normal text-muted">: {table.title}</span> : null}
         </h3>
         <ConfirmButton
+          tone="caution"
+          size="sm"
           label="Remove table"
           variant="ghost"
           question={`Remove table ${index + 1}${table.title.trim() ? ` (${table.title.trim()})` : ""}?${usedBy ? ` ${usedBy} graph${usedBy === 1 ? "" : "s"} or check${usedBy === 1 ? "" : "s"} use it and will need another table.` : ""}`}
