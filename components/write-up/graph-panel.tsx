@@ -303,7 +303,7 @@ export function GraphPanel(props: {
     <div className="flex flex-wrap items-end justify-between gap-2">
       <h3 className="text-lg font-bold">{graph.title}</h3>
       {data && points.length + excluded.length > 0 ? (
-        <Button variant="secondary" size="sm" onClick={() => chartRef.current?.resetZoom()}>
+        <Button variant="secondary" size="sm" className="no-print" onClick={() => chartRef.current?.resetZoom()}>
           Reset zoom
         </Button>
       ) : null}
@@ -369,7 +369,7 @@ export function GraphPanel(props: {
               </li>
             ) : null}
           </ul>
-          <p className="text-sm text-muted">Zoom with the mouse wheel or by pinching; drag the graph to move around.</p>
+          <p className="text-sm text-muted no-print">Zoom with the mouse wheel or by pinching; drag the graph to move around.</p>
         </>
       )}
       {note ? <p className="text-sm text-muted">{note}</p> : null}

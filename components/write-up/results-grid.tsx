@@ -222,7 +222,7 @@ export function ResultsGrid(props: {
               </label>
             </>
           ) : null}
-          <Button variant="secondary" size="sm" onClick={exportCsv}>
+          <Button variant="secondary" size="sm" className="no-print" onClick={exportCsv}>
             Download as CSV
           </Button>
         </div>

@@ -213,6 +213,51 @@ describe("the marking bench", () => {
     await student.close();
   });
 
+  it("J and K move to the next and previous write-up, and the printed copy is the marked write-up without the controls", async () => {
+    const draft = demoDraft();
+    const { context, page, errors } = await signedInWindow(browser, "teacher", "desktop");
+    // A handed-in write-up: the desk moves among those (drafts are not in its order).
+    const db = new Database(inject("databasePath"), { readonly: true, fileMustExist: true });
+    const handedIn = db.prepare("SELECT id FROM write_ups WHERE lab_session_id = ? AND status != 'draft' ORDER BY id").pluck().all(draft.labSessionId) as string[];
+    db.close();
+    expect(handedIn.length).toBeGreaterThan(1);
+    await page.goto(`/marking/${draft.labSessionId}/${handedIn[0]}`, { waitUntil: "networkidle" });
+    const heading = page.getByRole("heading", { level: 1 });
+    await heading.waitFor(WAIT);
+    const first = { url: page.url(), name: await heading.textContent() };
+    const nav = page.getByRole("navigation", { name: "Write-ups in this lab session" });
+    // The first write-up on the bench may be the last of the session's order: go whichever way there is to go, then back.
+    const [away, back] = (await nav.getByRole("button", { name: "Next →" }).isEnabled()) ? ["j", "k"] : ["k", "j"];
+    // Levels the checks suggest are pre-filled and not yet saved, so the desk may first ask
+    // before leaving; then the teacher chooses to leave.
+    const move = async (key: string, from: string) => {
+      await page.keyboard.press(key);
+      const leave = page.getByRole("alertdialog", { name: /are not saved\. Leave this write-up anyway\?/ });
+      await expect.poll(async () => page.url() !== from || (await leave.isVisible()), WAIT).toBe(true);
+      if (page.url() === from) await leave.getByRole("button", { name: "Leave without saving" }).click();
+      await expect.poll(() => page.url(), WAIT).not.toBe(from);
+      await page.waitForLoadState("networkidle");
+    };
+    await move(away, first.url);
+    await expect.poll(() => heading.textContent(), WAIT).not.toBe(first.name);
+    await move(back, page.url());
+    await expect.poll(() => page.url(), WAIT).toBe(first.url);
+    await expect.poll(() => heading.textContent(), WAIT).toBe(first.name);
+
+    // Printed: the student's work, the rubric and the marks; no buttons, key hints or bench links.
+    await page.emulateMedia({ media: "print" });
+    expect(await nav.isVisible()).toBe(false);
+    expect(await page.getByText("Keys: J next, K previous").isVisible()).toBe(false);
+    for (const control of ["Download as CSV", "Reset zoom"]) expect(await page.getByRole("button", { name: control }).first().isVisible()).toBe(false);
+    expect(await heading.isVisible()).toBe(true);
+    expect(await page.locator("#rubric-body").isVisible()).toBe(true);
+    await page.screenshot({ path: path.join(inject("screenshotDir"), "marking-desk-print.png"), fullPage: true });
+    await page.emulateMedia({ media: "screen" });
+    expect(await nav.isVisible()).toBe(true);
+    expectNoErrors(errors);
+    await context.close();
+  });
+
   it("on a phone, the rubric is a drawer under the write-up and the bench scrolls inside its own box", async () => {
     const draft = demoDraft();
     const { context, page, errors } = await signedInWindow(browser, "teacher", "phone");
