@@ -15,7 +15,7 @@ const g = globalThis as unknown as { __meniscusBooted?: Promise<void> };
  * Whether this process does the once-per-server jobs: the only process, or worker 1 when
  * scripts/serve.mjs runs several (the others start after it has booted).
  */
-export function isFirstWorker(): boolean {
+function isFirstWorker(): boolean {
   const n = process.env.MENISCUS_WORKER;
   return !n || n === "1";
 }

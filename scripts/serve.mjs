@@ -68,7 +68,7 @@ function startCheckpointer() {
 }
 
 function fork(n) {
-  const worker = cluster.fork({ MENISCUS_WORKER: String(n), MENISCUS_WORKERS: String(count), ...(checkpointHere ? { MENISCUS_WAL_CHECKPOINTER: "1" } : {}) });
+  const worker = cluster.fork({ MENISCUS_WORKER: String(n), ...(checkpointHere ? { MENISCUS_WAL_CHECKPOINTER: "1" } : {}) });
   const started = Date.now();
   workers.set(n, worker);
   worker.on("message", (msg) => {

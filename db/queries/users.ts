@@ -22,7 +22,6 @@ export function rolesByUser(db: DbOrTx, userIds: readonly string[]): Map<string,
   return map;
 }
 
-/** The actor for a signed-in user id, or null if the account is gone or deactivated. */
 const actorQuery = preparedOnce((db) =>
   db
     .select({ id: users.id, schoolId: users.schoolId, name: users.name, email: users.email, active: users.active })
@@ -32,6 +31,7 @@ const actorQuery = preparedOnce((db) =>
 );
 const actorRolesQuery = preparedOnce((db) => db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, sql.placeholder("id"))).prepare());
 
+/** The actor for a signed-in user id, or null if the account is gone or deactivated. */
 export function loadActor(userId: string): Actor | null {
   const user = actorQuery().get({ id: userId });
   if (!user || !user.active) return null;
